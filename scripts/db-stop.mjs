@@ -1,0 +1,4 @@
+import { stopPostgres } from './lib/postgres.mjs';
+import { root } from './setup.mjs';
+
+stopPostgres(root);

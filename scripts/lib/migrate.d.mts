@@ -1,0 +1,1 @@
+export function migrate(root: string, databaseUrl: string): Promise<void>;

@@ -1,0 +1,29 @@
+// Runs the built app (dist/server/entry.mjs) and waits until it answers.
+import { spawn } from 'node:child_process';
+import { join } from 'node:path';
+
+export function startServer(root, env, { stdio = 'inherit' } = {}) {
+  const child = spawn(process.execPath, [join(root, 'dist', 'server', 'entry.mjs')], {
+    cwd: root,
+    env: { ...process.env, ...env },
+    stdio,
+  });
+  return child;
+}
+
+export async function waitForServer(url, child, timeoutMs = 60_000) {
+  const deadline = Date.now() + timeoutMs;
+  let exited = false;
+  child.once('exit', () => (exited = true));
+  while (Date.now() < deadline) {
+    if (exited) throw new Error('the app server exited before it answered');
+    try {
+      const response = await fetch(`${url}/api/health`);
+      if (response.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+  throw new Error(`the app server did not answer at ${url} within ${timeoutMs / 1000} s`);
+}

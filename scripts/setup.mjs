@@ -1,0 +1,31 @@
+// Everything both `npm start` and `npm test` need: npm packages, PostgreSQL, local service fakes,
+// and the environment the app reads. Run directly (`npm run db:up`) it just brings them up.
+import { fileURLToPath } from 'node:url';
+import { dirname, join } from 'node:path';
+import { ensurePackages } from './lib/packages.mjs';
+import { ensurePostgres } from './lib/postgres.mjs';
+import { ensureLocalServices } from './lib/services.mjs';
+import { localSecret } from './lib/secrets.mjs';
+import { log } from './lib/run.mjs';
+
+export const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+
+export async function setup({ install = true } = {}) {
+  if (install) ensurePackages(root);
+  const { databaseUrl } = await ensurePostgres(root);
+  const services = await ensureLocalServices(root);
+  return {
+    databaseUrl,
+    env: {
+      BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET ?? localSecret(root, 'auth-secret'),
+      ...services,
+    },
+  };
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  const { databaseUrl } = await setup({ install: !process.argv.includes('--no-install') });
+  const { migrate } = await import('./lib/migrate.mjs');
+  await migrate(root, databaseUrl);
+  log(`PostgreSQL is up: ${databaseUrl.replace(/:[^:@/]+@/, ':***@')}`);
+}

@@ -1,0 +1,31 @@
+// Who may open which page. Endpoints under /api check roles themselves (lib/server/http.ts);
+// this table guards pages and gives anonymous API calls their 401.
+import type { UserRole } from '../db/schema';
+
+export type PageAccess =
+  | { kind: 'public' }
+  | { kind: 'api-public' }
+  | { kind: 'api' }
+  | { kind: 'roles'; roles: readonly UserRole[] };
+
+const PUBLIC_PREFIXES = ['/sign-in', '/record/', '/_astro/', '/fonts/', '/icons/'];
+const PUBLIC_FILES = new Set(['/', '/favicon.svg', '/manifest.webmanifest', '/sw.js', '/robots.txt', '/offline']);
+const PUBLIC_API_PREFIXES = ['/api/auth/', '/api/public/', '/api/health'];
+
+export const TECHNICIAN_ROLES = ['technician'] as const satisfies readonly UserRole[];
+export const OFFICE_PAGE_ROLES = ['office', 'owner'] as const satisfies readonly UserRole[];
+
+export function pageAccess(pathname: string): PageAccess {
+  if (pathname.startsWith('/api/')) {
+    return PUBLIC_API_PREFIXES.some((p) => pathname.startsWith(p)) ? { kind: 'api-public' } : { kind: 'api' };
+  }
+  if (PUBLIC_FILES.has(pathname) || PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return { kind: 'public' };
+  if (pathname.startsWith('/workbox-')) return { kind: 'public' };
+  if (pathname === '/office' || pathname.startsWith('/office/')) return { kind: 'roles', roles: OFFICE_PAGE_ROLES };
+  return { kind: 'roles', roles: TECHNICIAN_ROLES };
+}
+
+/** Where a signed-in user of each role starts. */
+export function homeFor(role: UserRole): string {
+  return role === 'technician' ? '/round' : '/office';
+}
