@@ -6,8 +6,9 @@ import { organisations } from './organisations';
 import { visits } from './visits';
 import { changeSeqColumn } from './change-feed';
 
-export const OP_OUTCOMES = ['applied', 'duplicate', 'superseded', 'conflict', 'locked', 'rejected'] as const;
-export type OpOutcome = (typeof OP_OUTCOMES)[number];
+import { OUTCOMES as OP_OUTCOMES, type Outcome as OpOutcome } from '../../lib/sync/operations';
+
+export { OP_OUTCOMES, type OpOutcome };
 
 export const syncOperations = pgTable(
   'sync_operations',

@@ -22,11 +22,10 @@ import { parts } from './catalogue';
 import { DISTANCE_UNITS } from './organisations';
 import { changeSeqColumn } from './change-feed';
 
-export const CHECK_STATES = ['done', 'skipped', 'not_yet'] as const;
-export type CheckState = (typeof CHECK_STATES)[number];
+import { CHECK_STATES, SEVERITIES, type Severity } from '../../lib/sync/operations';
 
-export const SEVERITIES = ['ok', 'watch', 'soon', 'now'] as const;
-export type Severity = (typeof SEVERITIES)[number];
+export { CHECK_STATES, SEVERITIES, type Severity };
+export type CheckState = (typeof CHECK_STATES)[number];
 
 export const checkResults = pgTable(
   'check_results',
