@@ -31,7 +31,7 @@ const shellPattern = new RegExp(`^(${TECHNICIAN_SHELLS.map((p) => p.replace('/',
 export const technicianWorkbox = {
   // Everything the client build wrote: the shell pages, scripts, styles, fonts and icons. Server
   // rendered pages (office, sign-in) are not files here, so they are never precached.
-  globPatterns: ['**/*.{js,css,html,svg,png,woff2,webmanifest}'],
+  globPatterns: ['**/*.{js,css,html,svg,png,woff2}'],
   // /visit?id=… is the one /visit shell; no precached file differs by query.
   ignoreURLParametersMatching: [/.*/],
   // A technician route the precache does not hold exactly (say /round/) still opens offline.

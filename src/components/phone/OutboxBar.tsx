@@ -37,7 +37,7 @@ export function OutboxBar() {
 
   const upload = status.upload;
   return (
-    <section aria-label="Outbox" className="border-b-2 border-ink/15 bg-white px-3 py-2">
+    <section aria-label="Outbox" className="border-b-2 border-ink/15 bg-white px-3 py-2 text-ink">
       <div className="flex items-center gap-3">
         <p className="min-w-0 flex-1 text-base leading-snug" aria-live="polite" data-testid="outbox-state">
           <span className="font-bold">{line}</span>

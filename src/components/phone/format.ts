@@ -13,6 +13,17 @@ export function formatDay(isoDate: string): string {
   return day.format(new Date(y!, m! - 1, d!));
 }
 
+const date = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric' });
+
+/** A calendar date (YYYY-MM-DD) or an instant as "1 January 2026", in the phone's time zone. */
+export function formatDate(value: string): string {
+  if (/^\d{4}-\d{2}-\d{2}$/.test(value)) {
+    const [y, m, d] = value.split('-').map(Number);
+    return date.format(new Date(y!, m! - 1, d!));
+  }
+  return date.format(new Date(value));
+}
+
 /** Today's calendar date on this phone, as YYYY-MM-DD. */
 export function todayIso(now = new Date()): string {
   const pad = (n: number) => String(n).padStart(2, '0');

@@ -66,8 +66,8 @@ export function RoundScreen({ device }: { device: Device }) {
           </p>
         ) : (
           <ol className="flex flex-col gap-3">
-            {todays.map((row) => (
-              <VisitCard key={row.visit.id} row={row} />
+            {todays.map((row, index) => (
+              <VisitCard key={row.visit.id} row={row} number={index + 1} />
             ))}
           </ol>
         )}
@@ -91,8 +91,8 @@ function DayList({ title, rows }: { title: string; rows: RoundRow[] }) {
     <section className="flex flex-col gap-3">
       <h2 className="text-xl font-bold">{title}</h2>
       <ol className="flex flex-col gap-3">
-        {rows.map((row) => (
-          <VisitCard key={row.visit.id} row={row} />
+        {rows.map((row, index) => (
+          <VisitCard key={row.visit.id} row={row} number={index + 1} />
         ))}
       </ol>
     </section>
@@ -106,7 +106,8 @@ function statusText(row: RoundRow): string {
   return row.progress ? `Not started · ${row.progress.total} items` : 'Not started';
 }
 
-function VisitCard({ row }: { row: RoundRow }) {
+// `number` is the visit's place in its day as shown (the office's order, counted from 1).
+function VisitCard({ row, number }: { row: RoundRow; number: number }) {
   const { visit, customer, vehicle } = row;
   const done = row.signedOff || ['signed_off', 'reviewed', 'invoiced', 'paid'].includes(visit.status);
   return (
@@ -114,11 +115,11 @@ function VisitCard({ row }: { row: RoundRow }) {
       <a
         href={`/visit?id=${visit.id}`}
         className="flex flex-col gap-2 rounded-xl border-2 border-ink/20 bg-white p-4 shadow-sm active:bg-paper"
-        aria-label={`Visit ${visit.roundPosition}: ${customer?.name ?? 'customer'}, ${vehicle?.registration ?? ''}`}
+        aria-label={`Visit ${number}: ${customer?.name ?? 'customer'}, ${vehicle?.registration ?? ''}`}
       >
         <div className="flex items-center gap-3">
           <span className="flex size-10 shrink-0 items-center justify-center rounded-full bg-brand text-lg font-bold text-white">
-            {visit.roundPosition}
+            {number}
           </span>
           <span className="text-xl font-bold">
             {formatTime(visit.slotStart)}–{formatTime(visit.slotEnd)}

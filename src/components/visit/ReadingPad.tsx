@@ -86,14 +86,36 @@ export function ReadingPad({ item, vehicle, current, settings, onRecord, onClose
       onClose={onClose}
       closeLabel="Cancel"
       footer={
-        <button
-          type="button"
-          onClick={record}
-          disabled={!canRecord || saving}
-          className="min-h-16 w-full rounded-lg bg-brand px-4 text-xl font-bold text-white disabled:bg-ink/30 disabled:text-ink/70"
-        >
-          {canRecord ? `Record ${withUnit(textMode ? typed.trim() : formatNumber(number!), item.unit)}` : 'Record'}
-        </button>
+        <div className="flex flex-col gap-2">
+          {!textMode && (
+            <div className="grid grid-cols-3 gap-2" aria-label="Number pad">
+              {allowsNegative && (
+                <button type="button" onClick={() => press('minus')} className="col-span-3 min-h-12 rounded-lg border-2 border-ink/40 bg-white text-xl font-bold" aria-label="Minus">
+                  − (below zero)
+                </button>
+              )}
+              {KEYS.map((key) => (
+                <button
+                  key={key}
+                  type="button"
+                  onClick={() => press(key)}
+                  aria-label={key === 'del' ? 'Delete' : key === '.' ? 'Decimal point' : key}
+                  className="min-h-14 rounded-lg border-2 border-ink/30 bg-paper text-3xl font-bold active:bg-ink/10"
+                >
+                  {key === 'del' ? '⌫' : key}
+                </button>
+              ))}
+            </div>
+          )}
+          <button
+            type="button"
+            onClick={record}
+            disabled={!canRecord || saving}
+            className="min-h-16 w-full rounded-lg bg-brand px-4 text-xl font-bold text-white disabled:bg-ink/30 disabled:text-ink/70"
+          >
+            {canRecord ? `Record ${withUnit(textMode ? typed.trim() : formatNumber(number!), item.unit)}` : 'Record'}
+          </button>
+        </div>
       }
     >
       <div className="flex flex-col gap-3">
@@ -145,26 +167,6 @@ export function ReadingPad({ item, vehicle, current, settings, onRecord, onClose
           </p>
         )}
 
-        {!textMode && (
-          <div className="grid grid-cols-3 gap-2" aria-label="Number pad">
-            {allowsNegative && (
-              <button type="button" onClick={() => press('minus')} className="col-span-3 min-h-14 rounded-lg border-2 border-ink/40 bg-white text-2xl font-bold" aria-label="Minus">
-                − (below zero)
-              </button>
-            )}
-            {KEYS.map((key) => (
-              <button
-                key={key}
-                type="button"
-                onClick={() => press(key)}
-                aria-label={key === 'del' ? 'Delete' : key === '.' ? 'Decimal point' : key}
-                className="min-h-16 rounded-lg border-2 border-ink/30 bg-white text-3xl font-bold active:bg-ink/10"
-              >
-                {key === 'del' ? '⌫' : key}
-              </button>
-            ))}
-          </div>
-        )}
       </div>
     </Sheet>
   );

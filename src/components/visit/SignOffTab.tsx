@@ -5,7 +5,7 @@ import SignaturePad from 'signature_pad';
 import { markUnsaved } from '../../lib/device/boot';
 import { signOff } from '../../lib/device/visit-actions';
 import { itemsLeft, visitProgress } from '../../lib/device/visit-progress';
-import { formatDay, formatTime, unitLabel } from '../phone/format';
+import { formatDate, formatTime, unitLabel } from '../phone/format';
 import { SEVERITY_LABEL, SeverityIcon } from '../ui/SeverityIcon';
 import type { TabProps } from './VisitScreen';
 
@@ -169,7 +169,7 @@ function SignedOff({ data }: { data: TabProps['data'] }) {
       <section className="rounded-xl border-2 border-sev-ok bg-white p-4">
         <h2 className="text-xl font-bold">Signed off</h2>
         <p>
-          {formatDay(s.signedAt.slice(0, 10))} at {formatTime(s.signedAt)} · odometer {s.odometer.toLocaleString('en-GB')} {unitLabel(s.odometerUnit)}
+          {formatDate(s.signedAt)} at {formatTime(s.signedAt)} · odometer {s.odometer.toLocaleString('en-GB')} {unitLabel(s.odometerUnit)}
         </p>
         <p className="mt-2">Signed by {s.customerName}:</p>
         <img src={`data:image/svg+xml;charset=utf-8,${encodeURIComponent(s.signatureSvg)}`} alt={`Signature of ${s.customerName}`} className="mt-1 h-32 w-full rounded-lg border border-ink/20 bg-white object-contain" />

@@ -2,7 +2,7 @@
 // and the reminder that the maker's data and local rules come first.
 import type { ReactNode } from 'react';
 import type { LocalPart } from '../../lib/device/db';
-import { formatDay, formatNumber, unitLabel } from '../phone/format';
+import { formatDate, formatNumber, unitLabel } from '../phone/format';
 import type { VisitData } from './visit-data';
 
 // Tyre pressures are kept in kPa; many gauges on the driveway read psi. 1 psi = 6.894757 kPa
@@ -20,7 +20,8 @@ export function VehicleCard({ data, onStart }: { data: VisitData; onStart: () =>
   const add = (label: string, value: ReactNode | null | undefined) => {
     if (value !== null && value !== undefined && value !== '') spec.push([label, value]);
   };
-  add('Engine', `${vehicle.engine} · ${vehicle.fuel}${vehicle.year ? ` · ${vehicle.year}` : ''}`);
+  const fuel = vehicle.engine.toLowerCase().includes(vehicle.fuel) ? '' : ` · ${vehicle.fuel}`;
+  add('Engine', `${vehicle.engine}${fuel}${vehicle.year ? ` · ${vehicle.year}` : ''}`);
   add('VIN', vehicle.vin);
   add('Engine oil', vehicle.oilGrade && `${vehicle.oilGrade}${vehicle.oilCapacityL ? `, ${formatNumber(vehicle.oilCapacityL)} L with filter` : ''}`);
   add('Sump plug torque', vehicle.sumpPlugTorqueNm && `${formatNumber(vehicle.sumpPlugTorqueNm)} N·m`);
@@ -47,7 +48,7 @@ export function VehicleCard({ data, onStart }: { data: VisitData; onStart: () =>
   add(
     'Last service',
     vehicle.lastServiceDate &&
-      `${formatDay(vehicle.lastServiceDate)}${vehicle.lastServiceOdometer ? ` at ${vehicle.lastServiceOdometer.toLocaleString('en-GB')} ${unitLabel(vehicle.odometerUnit)}` : ''}`,
+      `${formatDate(vehicle.lastServiceDate)}${vehicle.lastServiceOdometer ? ` at ${vehicle.lastServiceOdometer.toLocaleString('en-GB')} ${unitLabel(vehicle.odometerUnit)}` : ''}`,
   );
 
   return (
@@ -110,7 +111,7 @@ export function VehicleCard({ data, onStart }: { data: VisitData; onStart: () =>
         jack.
       </p>
 
-      <button type="button" onClick={onStart} className="sticky bottom-20 min-h-14 rounded-lg bg-brand px-4 text-lg font-bold text-white shadow-lg">
+      <button type="button" onClick={onStart} className="min-h-14 rounded-lg bg-brand px-4 text-lg font-bold text-white">
         Go to the checklist
       </button>
     </div>

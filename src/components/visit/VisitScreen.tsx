@@ -80,17 +80,21 @@ export function VisitScreen({ device, visitId }: { device: Device; visitId: stri
 
   return (
     <div className="flex flex-1 flex-col">
-      <div className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b-2 border-ink/15 bg-white px-3 py-2">
-        {data.vehicle && <Plate registration={data.vehicle.registration} />}
-        <span className="font-bold">{data.customer?.name}</span>
-        <span className="text-ink/80">
-          {formatTime(data.visit.slotStart)}–{formatTime(data.visit.slotEnd)}
-        </span>
-        {progress && (
-          <span className="ml-auto font-bold" data-testid="visit-progress">
-            {progress.done}/{progress.total}
+      <div className="flex flex-col gap-1 border-b-2 border-ink/15 bg-white px-3 py-2">
+        <div className="flex items-center gap-3">
+          {data.vehicle && <Plate registration={data.vehicle.registration} />}
+          <span className="min-w-0 truncate font-bold">{data.customer?.name}</span>
+        </div>
+        <div className="flex items-center gap-3 text-base">
+          <span>
+            {formatTime(data.visit.slotStart)}–{formatTime(data.visit.slotEnd)}
           </span>
-        )}
+          {progress && (
+            <span className="ml-auto font-bold" data-testid="visit-progress">
+              {progress.done} of {progress.total} done
+            </span>
+          )}
+        </div>
       </div>
       {locked && (
         <p className="flex items-center gap-2 border-b-2 border-sev-ok bg-sev-ok/10 px-3 py-2 font-bold text-sev-ok" role="status">
