@@ -28,6 +28,8 @@ const ETHYLENE_BY_MASS: readonly TableRow[] = [
   [60, -51.2],
 ];
 
+const TABLE_END_MASS = ETHYLENE_BY_MASS.at(-1)![0];
+
 // Propylene glycol (pure) in water, % by volume → freezing point °C: Lange's Handbook, 15th ed.,
 // Table 5.13, p. 5.85 (°C column; signs checked against the °F column).
 const PROPYLENE_BY_VOLUME: readonly TableRow[] = [
@@ -90,7 +92,10 @@ export function coolantFreezePoint(glycolVolPercent: number, glycol: Glycol = 'e
   let freezePointC: number | null;
   if (glycol === 'ethylene') {
     massPercent = massPercentFromVolume(vol);
-    freezePointC = interpolate(ETHYLENE_BY_MASS, massPercent);
+    // A strength given to 0.1 % by volume (as glycolForProtection rounds up) may land a hair past
+    // the last row; within that reading resolution it is the last row.
+    const lookup = massPercent > TABLE_END_MASS && massPercent <= TABLE_END_MASS + 0.1 ? TABLE_END_MASS : massPercent;
+    freezePointC = interpolate(ETHYLENE_BY_MASS, lookup);
   } else {
     freezePointC = interpolate(PROPYLENE_BY_VOLUME, vol);
   }
