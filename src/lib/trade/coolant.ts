@@ -7,7 +7,7 @@ export type Glycol = 'ethylene' | 'propylene';
 
 export const COOLANT_SOURCES: Record<Glycol, string> = {
   ethylene:
-    'Melinder, Properties of Secondary Working Fluids for Indirect Systems (IIR, 2010): ethylene glycol in water by mass, agreeing within 0.1 °C with the CRC Handbook concentrative-properties values; volume % converted with the densities at 20 °C',
+    'Melinder, Properties of Secondary Working Fluids for Indirect Systems (IIR, 2010): ethylene glycol in water by mass; volume % converted with the densities at 20 °C',
   propylene: "Lange's Handbook of Chemistry, 15th ed., Table 5.13 (propylene glycol in water by volume)",
 };
 
