@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { COOLANT_SOURCES, coolantFreezePoint, glycolForProtection, type Glycol } from '../../lib/trade';
-import { attempt, Caution, ChoiceGroup, ErrorNote, formatNumber, NumberField, readNumber, Result, SourceNote } from './parts';
+import { attempt, Caution, ChoiceGroup, ErrorNote, formatNumber, NoteList, NumberField, readNumber, Result, SourceNote } from './parts';
 
 type Mode = 'strength' | 'protection';
 
@@ -56,7 +56,7 @@ export default function CoolantCalculator() {
           </p>
           {freeze.value.freezePointF !== null ? <p className="text-lg">{formatNumber(freeze.value.freezePointF, 1)} °F</p> : null}
           {freeze.value.glycolMassPercent !== null ? <p className="text-base">{formatNumber(freeze.value.glycolMassPercent, 1)} % glycol by mass.</p> : null}
-          <Notes notes={freeze.value.notes} />
+          <NoteList notes={freeze.value.notes} />
         </Result>
       ) : null}
       {need && need.error === null ? (
@@ -65,7 +65,7 @@ export default function CoolantCalculator() {
             {formatNumber(need.value.glycolVolPercent, 1)} % by volume
           </p>
           {need.value.glycolL !== null ? <p className="text-xl font-bold">{formatNumber(need.value.glycolL, 2)} L of glycol in the system</p> : null}
-          <Notes notes={need.value.notes} />
+          <NoteList notes={need.value.notes} />
         </Result>
       ) : null}
       <SourceNote source={COOLANT_SOURCES[glycol]} />
@@ -73,12 +73,3 @@ export default function CoolantCalculator() {
   );
 }
 
-function Notes({ notes }: { notes: string[] }) {
-  return (
-    <ul className="list-disc pl-5 text-base">
-      {notes.map((n) => (
-        <li key={n}>{n}</li>
-      ))}
-    </ul>
-  );
-}

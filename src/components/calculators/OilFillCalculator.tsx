@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { oilFillPlan } from '../../lib/trade';
-import { attempt, Caution, ChoiceGroup, ErrorNote, formatNumber, NumberField, readNumber, Result, SourceNote } from './parts';
+import { attempt, Caution, ChoiceGroup, ErrorNote, formatNumber, NoteList, NumberField, readNumber, Result, SourceNote } from './parts';
 
 const JUGS = [
   { value: '0.5', label: '0.5 L' },
@@ -54,11 +54,7 @@ export default function OilFillCalculator() {
               Top-up to the upper mark: {formatNumber(plan.value.topUpL, 3)} L
             </p>
           ) : null}
-          <ul className="list-disc pl-5 text-base">
-            {plan.value.advice.map((a) => (
-              <li key={a}>{a}</li>
-            ))}
-          </ul>
+          <NoteList notes={plan.value.advice} />
         </Result>
       ) : null}
       <SourceNote source="Arithmetic on the capacity from the vehicle data, measured to the millilitre." />

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { checkTorqueWrench, convert, PLUG_THREADS, sparkPlugTightening, type CylinderHead, type PlugSeat, type PlugThread } from '../../lib/trade';
-import { attempt, ChoiceGroup, ErrorNote, formatNumber, NumberField, readNumber, Result, SelectField, SourceNote } from './parts';
+import { attempt, ChoiceGroup, ErrorNote, formatNumber, NoteList, NumberField, readNumber, Result, SelectField, SourceNote } from './parts';
 
 type TorqueUnit = 'N.m' | '[lbf_av].[ft_i]';
 const UNIT_LABEL: Record<TorqueUnit, string> = { 'N.m': 'N·m', '[lbf_av].[ft_i]': 'lbf·ft' };
@@ -86,11 +86,7 @@ export default function TorqueCalculator() {
         <p className="text-lg">
           Without a wrench: {formatNumber(plug.turnAngleDeg, 1)}° after the plug seats finger-tight{seat === 'flat' ? ' (new gasket)' : ''}.
         </p>
-        <ul className="list-disc pl-5 text-base">
-          {plug.notes.map((n) => (
-            <li key={n}>{n}</li>
-          ))}
-        </ul>
+        <NoteList notes={plug.notes} />
       </Result>
       <SourceNote source={plug.source} />
     </div>

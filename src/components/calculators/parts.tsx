@@ -147,6 +147,16 @@ export function Result(props: { label: string; children: ReactNode; severity?: S
   );
 }
 
+export function NoteList({ notes }: { notes: readonly string[] }) {
+  return (
+    <ul className="list-disc pl-5 text-base">
+      {notes.map((n) => (
+        <li key={n}>{n}</li>
+      ))}
+    </ul>
+  );
+}
+
 export function ErrorNote({ message }: { message: string }) {
   return (
     <p role="alert" className="flex gap-2 rounded-xl border-2 border-sev-now bg-white p-4 text-lg font-bold text-sev-now">
