@@ -4,7 +4,7 @@ import { liveQuery } from 'dexie';
 import { useEffect, useState, useSyncExternalStore, type DependencyList } from 'react';
 import { device } from '../../lib/device/boot';
 import type { SyncStatus } from '../../lib/device/sync-scheduler';
-import { onAppUpdate, type AppUpdate } from '../../lib/device/pwa';
+import { offlineReady, onAppUpdate, type AppUpdate } from '../../lib/device/pwa';
 
 /** A Dexie query that re-runs whenever the tables it read change (in this tab or another). */
 export function useLiveQuery<T>(query: () => Promise<T> | T, deps: DependencyList): T | undefined {
@@ -61,4 +61,17 @@ export function useOnline(): boolean {
     () => navigator.onLine,
     () => true,
   );
+}
+
+/** True once the service worker holds the app, so it opens with no signal. */
+export function useShellCached(): boolean {
+  const [cached, setCached] = useState(false);
+  useEffect(() => {
+    let live = true;
+    void offlineReady().then((ready) => live && setCached(ready));
+    return () => {
+      live = false;
+    };
+  }, []);
+  return cached;
 }

@@ -4,7 +4,7 @@ import type { Device } from '../../lib/device/boot';
 import type { LocalCustomer, LocalVehicle, LocalVisit } from '../../lib/device/db';
 import { visitProgress, type Progress } from '../../lib/device/visit-progress';
 import { formatDay, formatTime, todayIso } from '../phone/format';
-import { useLiveQuery } from '../phone/hooks';
+import { useLiveQuery, useShellCached } from '../phone/hooks';
 import { Plate } from '../visit/Plate';
 
 type RoundRow = {
@@ -45,9 +45,12 @@ async function loadRound({ db }: Device): Promise<RoundRow[]> {
 }
 
 export function RoundScreen({ device }: { device: Device }) {
-  const rows = useLiveQuery(() => loadRound(device), [device]);
+  const loaded = useLiveQuery(() => loadRound(device), [device]);
+  const shellCached = useShellCached();
   const today = todayIso();
-  if (!rows) return <p className="p-4">Loading the round…</p>;
+  if (!loaded) return <p className="p-4">Loading the round…</p>;
+  // A visit is ready offline once its data is on the phone and the app itself is cached.
+  const rows = loaded.map((row) => ({ ...row, ready: row.ready && shellCached }));
 
   const earlierOpen = rows.filter((r) => r.visit.roundDate < today && !r.signedOff && r.visit.status !== 'signed_off');
   const todays = rows.filter((r) => r.visit.roundDate === today);
@@ -60,6 +63,11 @@ export function RoundScreen({ device }: { device: Device }) {
           Today · {formatDay(today)}
         </h2>
         <p className="text-base">Signed in as {device.user.name}.</p>
+        {!shellCached && (
+          <p className="rounded-lg border-2 border-sev-watch bg-white p-3 text-base" role="status">
+            Getting the app ready to work without signal. Keep it open while you have signal.
+          </p>
+        )}
         {todays.length === 0 ? (
           <p className="rounded-lg border-2 border-dashed border-ink/30 p-4">
             No visits for today on this phone. If you expect some, sync when you have signal.

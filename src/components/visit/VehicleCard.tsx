@@ -1,13 +1,11 @@
 // The vehicle's data at hand before anything is touched: spec, special tools, known weak spots,
 // and the reminder that the maker's data and local rules come first.
 import type { ReactNode } from 'react';
+import { convert } from '../../lib/trade/units';
 import type { LocalPart } from '../../lib/device/db';
 import { formatDate, formatNumber, unitLabel } from '../phone/format';
 import type { VisitData } from './visit-data';
 
-// Tyre pressures are kept in kPa; many gauges on the driveway read psi. 1 psi = 6.894757 kPa
-// (NIST SP 811, appendix B.8), shown rounded to a whole psi.
-const KPA_PER_PSI = 6.894757;
 
 export function VehicleCard({ data, onStart }: { data: VisitData; onStart: () => void }) {
   const { vehicle, visit, customer } = data;
@@ -42,7 +40,8 @@ export function VehicleCard({ data, onStart }: { data: VisitData; onStart: () =>
   }
   add('Wheel nut torque', vehicle.wheelNutTorqueNm && `${formatNumber(vehicle.wheelNutTorqueNm)} N·m`);
   add('Brake fluid', vehicle.brakeFluidGrade);
-  const pressure = (kpa: number | null) => (kpa ? `${formatNumber(kpa)} kPa (${Math.round(kpa / KPA_PER_PSI)} psi)` : null);
+  // Pressures are kept in kPa; many driveway gauges read psi, shown as a whole number.
+  const pressure = (kpa: number | null) => (kpa ? `${formatNumber(kpa)} kPa (${Math.round(convert(kpa, 'kPa', '[psi]'))} psi)` : null);
   add('Tyres, front', pressure(vehicle.tyrePressureFrontKpa));
   add('Tyres, rear', pressure(vehicle.tyrePressureRearKpa));
   add(
