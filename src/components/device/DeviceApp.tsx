@@ -40,6 +40,14 @@ function DeviceScreen({ device }: { device: Device }) {
     void device.storage.then(setStorage);
   }, [device]);
 
+  async function letGoOfRefused() {
+    if (!window.confirm('Let go of the refused changes? The phone then shows what the office has for those visits.')) return;
+    const { startPullOver } = await import('../../lib/device/sync-client');
+    await device.db.outbox.where('state').equals('rejected').delete();
+    await startPullOver(device.db);
+    await device.sync.syncNow();
+  }
+
   async function signOut() {
     const waiting = outbox?.pending ?? 0;
     if (waiting > 0 && !window.confirm(`${waiting} changes have not reached the office yet. They stay on this phone and are sent the next time you sign in. Sign out?`)) return;
@@ -82,6 +90,9 @@ function DeviceScreen({ device }: { device: Device }) {
                 </li>
               ))}
             </ul>
+            <button type="button" onClick={letGoOfRefused} className="mt-3 min-h-12 w-full rounded-lg border-2 border-sev-now px-3 font-bold text-sev-now">
+              Let go of refused changes
+            </button>
           </>
         )}
       </section>

@@ -20,7 +20,12 @@ function indexUnsent(entries: OutboxEntry[]): UnsentIndex {
   return index;
 }
 
-export async function storePulledPage(db: DeviceDb, page: PullResponse): Promise<void> {
+/**
+ * `replace`: the page is the server's whole view (a pull from no cursor). Records of its visits
+ * that the server does not hold and no unsent operation touches are dropped: an operation the
+ * server overruled (say, a finding added to a visit the office had locked) leaves nothing behind.
+ */
+export async function storePulledPage(db: DeviceDb, page: PullResponse, options: { replace?: boolean } = {}): Promise<void> {
   await db.transaction(
     'rw',
     [
@@ -46,6 +51,7 @@ export async function storePulledPage(db: DeviceDb, page: PullResponse): Promise
       const unsent = indexUnsent(await db.outbox.toArray());
       const stampsFor = (visitId: string, kind: string, entityId: string) => unsent.get(keyOf(visitId, kind, entityId)) ?? [];
 
+      if (options.replace) await dropWhatTheServerLacks(db, page, (visitId, kind, entityId) => stampsFor(visitId, kind, entityId).length > 0);
       await db.customers.bulkPut(page.customers);
       await db.vehicles.bulkPut(page.vehicles);
       await db.parts.bulkPut(page.parts);
@@ -101,6 +107,33 @@ export async function storePulledPage(db: DeviceDb, page: PullResponse): Promise
       await db.meta.put({ key: 'cursor', value: page.cursor });
     },
   );
+}
+
+async function dropWhatTheServerLacks(db: DeviceDb, page: PullResponse, unsent: (visitId: string, kind: string, entityId: string) => boolean) {
+  // Visits missing from the whole view have left this round.
+  const inView = new Set(page.visits.map((v) => v.id));
+  for (const visitId of await db.visits.toCollection().primaryKeys()) {
+    if (!inView.has(visitId)) await forgetVisit(db, visitId);
+  }
+  const keep = (visitId: string, kinds: string[], entityId: string, pulled: Set<string>) =>
+    pulled.has(entityId) || kinds.some((kind) => unsent(visitId, kind, entityId));
+  for (const { id: visitId } of page.visits) {
+    const pulledItems = (rows: { visitId: string; itemId: string }[]) => new Set(rows.filter((r) => r.visitId === visitId).map((r) => r.itemId));
+    const pulledIds = (rows: { visitId: string; id: string }[]) => new Set(rows.filter((r) => r.visitId === visitId).map((r) => r.id));
+    const checks = pulledItems(page.checkResults);
+    const readings = pulledItems(page.readingResults);
+    const findings = pulledIds(page.findings);
+    const photos = pulledIds(page.photos);
+    const lines = pulledIds(page.partLines);
+    await db.checkResults.where('visitId').equals(visitId).filter((r) => !keep(visitId, ['check'], r.itemId, checks)).delete();
+    await db.readingResults.where('visitId').equals(visitId).filter((r) => !keep(visitId, ['reading'], r.itemId, readings)).delete();
+    await db.findings.where('visitId').equals(visitId).filter((r) => !keep(visitId, ['finding'], r.id, findings)).delete();
+    await db.partLines.where('visitId').equals(visitId).filter((r) => !keep(visitId, ['part_line'], r.id, lines)).delete();
+    // Photo rows only: the bytes stay in photoBlobs under their hash, still viewable offline.
+    await db.photos.where('visitId').equals(visitId).filter((r) => !keep(visitId, ['photo.add', 'photo.remove'], r.id, photos)).delete();
+    const liveSignOff = page.signOffs.some((so) => so.visitId === visitId && !so.voided);
+    if (!liveSignOff && !unsent(visitId, 'sign_off', visitId)) await db.signOffs.delete(visitId);
+  }
 }
 
 async function storePulledPhoto(db: DeviceDb, row: PullResponse['photos'][number], unsentRemoves: string[]) {

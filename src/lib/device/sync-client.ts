@@ -1,7 +1,7 @@
 // One sync run: upload photo bytes, push the outbox, pull what changed. Talks HTTP through the
 // `fetch` it is given, so tests run it against the real server from Node.
 import { MAX_BATCH_OPERATIONS, MAX_PUSH_BYTES, pushResponseSchema } from '../sync/push';
-import { pullResponseSchema } from '../sync/pull';
+import { pullResponseSchema, type PullResponse } from '../sync/pull';
 import type { DeviceDb, OutboxEntry } from './db';
 import { deviceIdOf, receiveServerStamp } from './clock-store';
 import { storePulledPage, sweepGoneVisits } from './pull-store';
@@ -46,8 +46,12 @@ const MAX_PULL_PAGES_PER_RUN = 200;
 
 export async function syncOnce(deps: SyncDeps): Promise<SyncReport> {
   const photosUploaded = await uploadPhotos(deps);
-  const { pushed, rejected } = await pushOutbox(deps);
+  const { pushed, rejected, overruled } = await pushOutbox(deps);
   await sweepGoneVisits(deps.db);
+  // An operation the server kept but did not apply (superseded, in conflict, visit locked) leaves
+  // the phone showing a value the server does not hold, and the server's row has not changed, so
+  // a pull from the cursor would not bring it back: pull everything again instead (rare, small).
+  if (overruled) await startPullOver(deps.db);
   const pulledPages = await pullAll(deps);
   await deps.db.meta.put({ key: 'lastSyncedAt', value: new Date().toISOString() });
   return { pushed, rejected, pulledPages, photosUploaded };
@@ -184,11 +188,17 @@ async function nextBatch(db: DeviceDb): Promise<OutboxEntry[]> {
   return batch;
 }
 
-async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: number }> {
+/** Forget the pull cursor, so the next pull brings the server's whole view of this user's round. */
+export async function startPullOver(db: DeviceDb): Promise<void> {
+  await db.meta.delete('cursor');
+}
+
+async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: number; overruled: boolean }> {
   const { db } = deps;
   const deviceId = await deviceIdOf(db);
   let pushed = 0;
   let rejected = 0;
+  let overruled = false;
   for (;;) {
     const batch = await nextBatch(db);
     if (batch.length === 0) break;
@@ -213,6 +223,7 @@ async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: n
           // applied, duplicate, superseded, conflict, locked: the server holds it (conflicts in
           // the office's list), so the phone may let go of the operation.
           pushed += 1;
+          if (result.outcome !== 'applied' && result.outcome !== 'duplicate') overruled = true;
           await db.outbox.delete(entry.seq!);
         }
       }
@@ -220,23 +231,40 @@ async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: n
     await receiveServerStamp(db, answer.serverStamp);
     if (answer.results.length === 0) break;
   }
-  return { pushed, rejected };
+  return { pushed, rejected, overruled };
 }
 
 // ---- pull -----------------------------------------------------------------------------------
 
 async function pullAll(deps: SyncDeps): Promise<number> {
   const { db } = deps;
+  const row = await db.meta.get('cursor');
+  let cursor = row?.key === 'cursor' ? row.value : null;
+  // From no cursor the answer is the server's whole view: gather every page and store them as
+  // one, so records the server does not hold can be dropped in the same transaction.
+  const whole = cursor === null;
+  let gathered: PullResponse | null = null;
   let pages = 0;
-  for (; pages < MAX_PULL_PAGES_PER_RUN; ) {
-    const row = await db.meta.get('cursor');
-    const cursor = row?.key === 'cursor' ? row.value : '0';
-    const response = await request(deps, `/api/sync/pull?cursor=${encodeURIComponent(cursor)}`);
+  while (pages < MAX_PULL_PAGES_PER_RUN) {
+    const response = await request(deps, `/api/sync/pull?cursor=${encodeURIComponent(cursor ?? '0')}`);
     if (!response.ok) throw await errorOf(response);
     const page = await understood(response, pullResponseSchema);
-    await storePulledPage(db, page);
     pages += 1;
+    if (whole) gathered = gathered ? joinPages(gathered, page) : page;
+    else await storePulledPage(db, page);
+    cursor = page.cursor;
     if (!page.hasMore) break;
   }
+  if (gathered) await storePulledPage(db, gathered, { replace: true });
   return pages;
+}
+
+function joinPages(a: PullResponse, b: PullResponse): PullResponse {
+  const joined = { ...b };
+  for (const key of Object.keys(b) as (keyof PullResponse)[]) {
+    const left = a[key];
+    const right = b[key];
+    if (Array.isArray(left) && Array.isArray(right)) (joined as Record<string, unknown>)[key] = [...left, ...right];
+  }
+  return joined;
 }

@@ -143,3 +143,34 @@ describe('syncOnce', () => {
     expect(await db.outbox.count()).toBe(1);
   });
 });
+
+describe('an operation the server overrules', () => {
+  it('pulls the whole round again and drops what the server does not hold', async () => {
+    const { state, fetchImpl } = fakeServer();
+    const { saveFinding } = await import('../../../src/lib/device/visit-actions');
+    const finding = await saveFinding(db, ids.visit, { itemId: null, title: 'Wiper split', detail: '', severity: 'watch' });
+    const other = roundPage();
+    // The server answers `locked` (the office had locked the visit), and its whole view holds the
+    // visit without the finding; the other round's visit is no longer this technician's.
+    await storePulledPage(db, { ...other.page, cursor: '20' });
+    const lockedFetch = (async (input: string | URL | Request, init?: RequestInit) => {
+      const url = new URL(String(input), 'http://phone.test');
+      if (url.pathname === '/api/sync/push') {
+        const body = JSON.parse(String(init?.body)) as Pushed;
+        return Response.json({ results: body.operations.map((o) => ({ opId: o.opId, outcome: 'locked' })), serverStamp: state.serverStamp });
+      }
+      if (url.pathname === '/api/sync/pull') {
+        state.pullCursors.push(url.searchParams.get('cursor')!);
+        const whole = roundPage();
+        return Response.json({ ...whole.page, cursor: '30', visits: whole.page.visits.map((v) => ({ ...v, id: ids.visit })) });
+      }
+      return fetchImpl(input, init);
+    }) as typeof fetch;
+    await syncOnce({ db, fetch: lockedFetch });
+    expect(state.pullCursors).toEqual(['0']);
+    expect(await db.findings.get(finding.payload.findingId)).toBeUndefined();
+    expect(await db.visits.get(ids.visit)).toBeDefined();
+    expect(await db.visits.get(other.ids.visit)).toBeUndefined();
+    expect(await db.meta.get('cursor')).toEqual({ key: 'cursor', value: '30' });
+  });
+});
