@@ -10,6 +10,7 @@ import { formatNumber, withUnit } from '../phone/format';
 import { judgeItem, type PhoneSettings, type ReadingJudgement } from './judge';
 import { VERDICT_LABEL, VerdictIcon } from './VerdictLine';
 import type { TabProps } from './VisitScreen';
+import { useRecorder } from './use-recorder';
 import type { RecordedReading } from './ReadingPad';
 import type { FindingDraft } from './FindingSheet';
 
@@ -23,8 +24,8 @@ export default function ChecklistTab({ device, data, locked }: TabProps) {
   const [padItem, setPadItem] = useState<ItemOf | null>(null);
   const [finding, setFinding] = useState<FindingDraft | null>(null);
   const [undo, setUndo] = useState<Undo | null>(null);
-  const [problem, setProblem] = useState<string | null>(null);
   const { db, sync } = device;
+  const { run, alert } = useRecorder(device);
   const visitId = data.visit.id;
 
   useEffect(() => {
@@ -36,16 +37,6 @@ export default function ChecklistTab({ device, data, locked }: TabProps) {
     const timer = setTimeout(() => setUndo(null), 8000);
     return () => clearTimeout(timer);
   }, [undo]);
-
-  async function run(action: () => Promise<unknown>) {
-    setProblem(null);
-    try {
-      await action();
-      sync.changed();
-    } catch (error) {
-      setProblem(error instanceof Error ? error.message : String(error));
-    }
-  }
 
   const stateOf = (itemId: string): CheckState => data.checks.find((c) => c.itemId === itemId)?.state ?? 'not_yet';
 
@@ -100,11 +91,7 @@ export default function ChecklistTab({ device, data, locked }: TabProps) {
 
   return (
     <div className="flex flex-col gap-5 p-3">
-      {problem && (
-        <p role="alert" className="rounded-lg border-2 border-sev-now bg-white p-3 font-bold text-sev-now">
-          {problem}
-        </p>
-      )}
+      {alert}
       {data.version.sections.map((section) => {
         const progress = sectionProgress(section, data);
         return (

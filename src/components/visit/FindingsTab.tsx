@@ -7,37 +7,22 @@ import type { FindingDraft } from './FindingSheet';
 import { PhotoPicker } from './PhotoPicker';
 import { PhotoThumb } from './PhotoThumb';
 import type { TabProps } from './VisitScreen';
+import { useRecorder } from './use-recorder';
 
 const FindingSheet = lazy(() => import('./FindingSheet'));
 
 export default function FindingsTab({ device, data, locked }: TabProps) {
   const [draft, setDraft] = useState<FindingDraft | null>(null);
   const [note, setNote] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
-  const { db, sync } = device;
+  const { db } = device;
+  const { run, alert } = useRecorder(device);
   const visitId = data.visit.id;
   const photos = data.photos.filter((p) => !p.removed);
   const itemLabel = (itemId: string | null) => (itemId ? data.version?.sections.flatMap((s) => s.items).find((i) => i.id === itemId)?.label : undefined);
 
-  async function run(action: () => Promise<unknown>) {
-    setProblem(null);
-    try {
-      await action();
-      sync.changed();
-      return true;
-    } catch (error) {
-      setProblem(error instanceof Error ? error.message : String(error));
-      return false;
-    }
-  }
-
   return (
     <div className="flex flex-col gap-6 p-3">
-      {problem && (
-        <p role="alert" className="rounded-lg border-2 border-sev-now bg-white p-3 font-bold text-sev-now">
-          {problem}
-        </p>
-      )}
+      {alert}
       <section className="flex flex-col gap-2" aria-labelledby="findings-heading">
         <h2 id="findings-heading" className="text-xl font-bold">
           Findings

@@ -7,28 +7,19 @@ import { suggestPart } from '../../lib/device/part-suggestion';
 import { itemSkipped } from '../../lib/device/visit-progress';
 import { formatNumber, withUnit } from '../phone/format';
 import type { TabProps } from './VisitScreen';
+import { useRecorder } from './use-recorder';
 
 // Oil is poured by the litre and read off a jug in tenths; counted parts go one at a time.
 const STEP: Record<string, number> = { L: 0.1, '{each}': 1 };
 
 export default function PartsTab({ device, data, locked }: TabProps) {
-  const [problem, setProblem] = useState<string | null>(null);
   const [picking, setPicking] = useState(false);
-  const { db, sync } = device;
+  const { db } = device;
+  const { run, alert } = useRecorder(device);
   const visitId = data.visit.id;
   const lines = data.partLines.filter((l) => !l.removed);
   const partItems = data.version?.sections.flatMap((s) => s.items).filter((i) => i.kind === 'part') ?? [];
   const open = partItems.filter((item) => !lines.some((l) => l.itemId === item.id) && !itemSkipped(item, data));
-
-  async function run(action: () => Promise<unknown>) {
-    setProblem(null);
-    try {
-      await action();
-      sync.changed();
-    } catch (error) {
-      setProblem(error instanceof Error ? error.message : String(error));
-    }
-  }
 
   const change = (line: LocalPartLine, patch: Partial<LocalPartLine>) =>
     run(() => savePartLine(db, visitId, { lineId: line.id, itemId: line.itemId, partId: line.partId, partNumber: line.partNumber, description: line.description, quantity: line.quantity, unit: line.unit, removed: line.removed, ...patch }));
@@ -40,11 +31,7 @@ export default function PartsTab({ device, data, locked }: TabProps) {
 
   return (
     <div className="flex flex-col gap-5 p-3">
-      {problem && (
-        <p role="alert" className="rounded-lg border-2 border-sev-now bg-white p-3 font-bold text-sev-now">
-          {problem}
-        </p>
-      )}
+      {alert}
       <section className="flex flex-col gap-2">
         <h2 className="text-xl font-bold">Fitted on this visit</h2>
         {lines.length === 0 && <p>Nothing fitted yet.</p>}

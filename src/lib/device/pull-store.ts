@@ -28,24 +28,7 @@ function indexUnsent(entries: OutboxEntry[]): UnsentIndex {
 export async function storePulledPage(db: DeviceDb, page: PullResponse, options: { replace?: boolean } = {}): Promise<void> {
   await db.transaction(
     'rw',
-    [
-      db.visits,
-      db.customers,
-      db.vehicles,
-      db.parts,
-      db.modelNotes,
-      db.templateVersions,
-      db.checkResults,
-      db.readingResults,
-      db.findings,
-      db.notes,
-      db.photos,
-      db.photoBlobs,
-      db.partLines,
-      db.signOffs,
-      db.outbox,
-      db.meta,
-    ],
+    db.tables,
     async () => {
       // Rejected operations count too: what they recorded is still on the phone and must stay visible.
       const unsent = indexUnsent(await db.outbox.toArray());

@@ -86,3 +86,18 @@ export function roundPage() {
   });
   return { page, ids };
 }
+
+/** A fresh device database (fake-indexeddb) holding the round of `roundPage()`. */
+export async function openDeviceWithRound(prefix: string) {
+  const { DeviceDb } = await import('../../../src/lib/device/db');
+  const { storePulledPage } = await import('../../../src/lib/device/pull-store');
+  const db = new DeviceDb(`${prefix}-${randomUUID()}`);
+  const round = roundPage();
+  await storePulledPage(db, round.page);
+  return { db, ids: round.ids };
+}
+
+export async function closeDevice(db: { close(): void; delete(): Promise<void> }) {
+  db.close();
+  await db.delete();
+}

@@ -1,14 +1,13 @@
 // Pulled rows meet the phone's unsent changes: what the technician recorded stays on screen until
 // the server has it; a removed visit with unsent changes is hidden, not deleted.
 import 'fake-indexeddb/auto';
-import { randomUUID } from 'node:crypto';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { DeviceDb } from '../../../src/lib/device/db';
 import { storePulledPage, sweepGoneVisits } from '../../../src/lib/device/pull-store';
 import { keepLocal, severityToShow } from '../../../src/lib/device/pull-merge';
 import { saveFinding, setCheck, signOff } from '../../../src/lib/device/visit-actions';
 import { encodeStamp } from '../../../src/lib/sync/clock';
-import { emptyPage, roundPage } from './pull-page';
+import { emptyPage, roundPage, openDeviceWithRound, closeDevice } from './pull-page';
 
 const serverStamp = (wallMs: number) => encodeStamp({ wallMs, counter: 0, deviceId: 'server' });
 const LONG_AGO = serverStamp(1_000);
@@ -18,16 +17,10 @@ let db: DeviceDb;
 let ids: ReturnType<typeof roundPage>['ids'];
 
 beforeEach(async () => {
-  db = new DeviceDb(`test-${randomUUID()}`);
-  const round = roundPage();
-  ids = round.ids;
-  await storePulledPage(db, round.page);
+  ({ db, ids } = await openDeviceWithRound('test'));
 });
 
-afterEach(async () => {
-  db.close();
-  await db.delete();
-});
+afterEach(() => closeDevice(db));
 
 describe('keepLocal', () => {
   it('keeps the local value only while an unsent change is later than the pulled one', () => {

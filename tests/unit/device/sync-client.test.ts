@@ -2,14 +2,13 @@
 // HTTP answers (the real server is exercised by the e2e test): upload before push, a dropped
 // upload retried, refusals kept, 401 leaving the outbox alone, pages stored with their cursor.
 import 'fake-indexeddb/auto';
-import { randomUUID } from 'node:crypto';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { DeviceDb } from '../../../src/lib/device/db';
 import { storePulledPage } from '../../../src/lib/device/pull-store';
 import { OfflineError, ServerError, SignedOutError, syncOnce, type PutBytes } from '../../../src/lib/device/sync-client';
 import { addPhoto, setCheck } from '../../../src/lib/device/visit-actions';
 import { decodeStamp, encodeStamp } from '../../../src/lib/sync/clock';
-import { emptyPage, roundPage } from './pull-page';
+import { emptyPage, roundPage, openDeviceWithRound, closeDevice } from './pull-page';
 
 type Pushed = { deviceId: string; operations: { opId: string; kind: string }[] };
 
@@ -52,16 +51,10 @@ let db: DeviceDb;
 let ids: ReturnType<typeof roundPage>['ids'];
 
 beforeEach(async () => {
-  db = new DeviceDb(`sync-${randomUUID()}`);
-  const round = roundPage();
-  ids = round.ids;
-  await storePulledPage(db, round.page);
+  ({ db, ids } = await openDeviceWithRound('sync'));
 });
 
-afterEach(async () => {
-  db.close();
-  await db.delete();
-});
+afterEach(() => closeDevice(db));
 
 const jpeg = (bytes: number[]) => new Blob([new Uint8Array(bytes)], { type: 'image/jpeg' });
 

@@ -4,7 +4,6 @@ import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { DeviceDb } from '../../../src/lib/device/db';
-import { storePulledPage } from '../../../src/lib/device/pull-store';
 import {
   RecordingError,
   SEVERITY_RANK as DEVICE_SEVERITY_RANK,
@@ -21,7 +20,7 @@ import {
 } from '../../../src/lib/device/visit-actions';
 import { compareStamps, isStamp, type Stamp } from '../../../src/lib/sync/clock';
 import { SEVERITY_RANK, entityIdOf, operationSchema } from '../../../src/lib/sync/operations';
-import { roundPage } from './pull-page';
+import { roundPage, openDeviceWithRound, closeDevice } from './pull-page';
 
 const SIGNATURE = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><path d="M1 1L9 9"/></svg>';
 
@@ -29,16 +28,10 @@ let db: DeviceDb;
 let ids: ReturnType<typeof roundPage>['ids'];
 
 beforeEach(async () => {
-  db = new DeviceDb(`test-${randomUUID()}`);
-  const round = roundPage();
-  ids = round.ids;
-  await storePulledPage(db, round.page);
+  ({ db, ids } = await openDeviceWithRound('test'));
 });
 
-afterEach(async () => {
-  db.close();
-  await db.delete();
-});
+afterEach(() => closeDevice(db));
 
 describe('recording a change', () => {
   it('writes the check and one valid outbox operation in the same step', async () => {
