@@ -118,7 +118,7 @@ function WrenchSetting() {
     });
   }, []);
 
-  async function save(event: React.FormEvent) {
+  async function save(event: { preventDefault(): void }) {
     event.preventDefault();
     const minNm = Number(min.replace(',', '.'));
     const maxNm = Number(max.replace(',', '.'));

@@ -51,9 +51,10 @@ export async function registerServiceWorker(beforeApply: () => string | null): P
 }
 
 /** True once a service worker controls this page (the shell will open offline next time). */
-export function offlineReady(): Promise<boolean> {
-  if (!('serviceWorker' in navigator)) return Promise.resolve(false);
-  return navigator.serviceWorker.ready.then(() => true);
+export async function offlineReady(): Promise<boolean> {
+  if (!('serviceWorker' in navigator)) return false;
+  await navigator.serviceWorker.ready;
+  return true;
 }
 
 /**

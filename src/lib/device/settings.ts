@@ -8,8 +8,8 @@ export type TreadRegion = 'UK' | 'EU' | 'US';
 const WRENCH_KEY = 'tickover:wrench';
 const REGION_KEY = 'tickover:region';
 
-export function readWrench(): Promise<WrenchRange | null> {
-  return get<WrenchRange>(WRENCH_KEY).then((w) => w ?? null);
+export async function readWrench(): Promise<WrenchRange | null> {
+  return (await get<WrenchRange>(WRENCH_KEY)) ?? null;
 }
 
 /** The marked range of the wrench (ISO 6789-1:2017 calibrates from the lowest marked value). */
@@ -25,8 +25,8 @@ export async function saveWrench(range: WrenchRange | null): Promise<void> {
   await set(WRENCH_KEY, range);
 }
 
-export function readRegion(): Promise<TreadRegion> {
-  return get<TreadRegion>(REGION_KEY).then((r) => r ?? 'UK');
+export async function readRegion(): Promise<TreadRegion> {
+  return (await get<TreadRegion>(REGION_KEY)) ?? 'UK';
 }
 
 export async function saveRegion(region: TreadRegion): Promise<void> {
