@@ -27,7 +27,8 @@ export function markUnsaved(key: string, description: string | null): void {
   else unsaved.delete(key);
 }
 
-function updateBlocker(): string | null {
+/** Why an app update must wait, or null when nothing unsaved is open. */
+export function updateBlocker(): string | null {
   const open = [...unsaved.values()];
   return open.length ? `Save or cancel ${open.join(' and ')} first; then update.` : null;
 }

@@ -105,3 +105,16 @@ describe('session and settings', () => {
     expect(validateWrench(Number.NaN, 40)).toMatch(/numbers/);
   });
 });
+
+describe('applying an app update', () => {
+  it('waits while a form holds unsaved input, and says which', async () => {
+    const { markUnsaved, updateBlocker } = await import('../../../src/lib/device/boot');
+    expect(updateBlocker()).toBeNull();
+    markUnsaved('reading', 'the reading for “Tread depth”');
+    markUnsaved('finding', 'the open finding');
+    expect(updateBlocker()).toBe('Save or cancel the reading for “Tread depth” and the open finding first; then update.');
+    markUnsaved('reading', null);
+    markUnsaved('finding', null);
+    expect(updateBlocker()).toBeNull();
+  });
+});
