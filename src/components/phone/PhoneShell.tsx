@@ -1,6 +1,6 @@
 // The frame of every technician screen: starts the device (who is signed in, their database, sync
 // and the service worker), then shows the header, the outbox bar and the screen itself.
-import { useEffect, useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { bootDevice, type Device } from '../../lib/device/boot';
 import { OutboxBar } from './OutboxBar';
 import { UpdateBanner } from './UpdateBanner';
@@ -15,6 +15,16 @@ type State = { kind: 'starting' } | { kind: 'ready'; device: Device } | { kind: 
 
 export function PhoneShell({ title, back, children }: Props) {
   const [state, setState] = useState<State>({ kind: 'starting' });
+  const header = useRef<HTMLElement>(null);
+
+  // Sticky headings below the shell's header sit under it, however tall the outbox line wraps.
+  useEffect(() => {
+    const element = header.current;
+    if (!element) return;
+    const observer = new ResizeObserver(() => document.documentElement.style.setProperty('--shell-header-h', `${element.offsetHeight}px`));
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, []);
 
   useEffect(() => {
     let cancelled = false;
@@ -40,7 +50,7 @@ export function PhoneShell({ title, back, children }: Props) {
 
   return (
     <div className="flex min-h-dvh flex-col">
-      <header className="sticky top-0 z-20 bg-brand-dark text-white">
+      <header ref={header} className="sticky top-0 z-20 bg-brand-dark text-white">
         <div className="flex min-h-16 items-center gap-2 px-2">
           {back ? (
             <a href={back.href} className="flex min-h-12 min-w-12 items-center gap-1 rounded-lg px-2 font-bold">

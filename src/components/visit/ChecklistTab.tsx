@@ -96,7 +96,7 @@ export default function ChecklistTab({ device, data, locked }: TabProps) {
         const progress = sectionProgress(section, data);
         return (
           <section key={section.id} aria-labelledby={`s-${section.id}`} className="flex flex-col gap-2">
-            <div className="sticky top-[7.5rem] z-10 -mx-3 flex items-center gap-3 bg-paper/95 px-3 py-2">
+            <div className="sticky top-[var(--shell-header-h,8rem)] z-10 -mx-3 flex items-center gap-3 bg-paper/95 px-3 py-2">
               <h2 id={`s-${section.id}`} className="flex-1 text-xl font-bold">
                 {section.title}
               </h2>
