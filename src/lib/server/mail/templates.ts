@@ -2,6 +2,7 @@
 // ignore modern CSS, so the layout is one centred table with inline styles, and every message
 // reads the same as plain text. Nothing is loaded from the network (no images, no fonts).
 import type { Severity } from '../../../db/schema';
+import { SEVERITY_DISPLAY } from '../../record/severity';
 
 export type RenderedMail = { subject: string; html: string; text: string };
 
@@ -14,12 +15,7 @@ const BRAND = '#0d5c63';
 const INK = '#14202b';
 
 // Each severity has a word and a shape as well as a colour (never colour alone).
-export const SEVERITY_WORDS: Record<Severity, { label: string; mark: string; colour: string }> = {
-  now: { label: 'Needs doing now', mark: '■', colour: '#b3261e' },
-  soon: { label: 'Needs doing soon', mark: '▲', colour: '#a35a00' },
-  watch: { label: 'Keep an eye on it', mark: '●', colour: '#1d5fa8' },
-  ok: { label: 'Fine', mark: '✔', colour: '#1f7a3d' },
-};
+const SEVERITY_WORDS = SEVERITY_DISPLAY;
 
 type Block =
   | { kind: 'p'; text: string }
