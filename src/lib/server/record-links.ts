@@ -51,7 +51,8 @@ export async function createRecordLink(
   input: { organisationId: string; visitId: string; createdBy: string | null; now?: Date },
 ) {
   const now = input.now ?? new Date();
-  const expiresAt = new Date(now.getTime() + recordLinkDays() * 86_400_000);
+  // Whole seconds: the token carries the expiry in seconds and must match the row exactly.
+  const expiresAt = new Date(Math.floor((now.getTime() + recordLinkDays() * 86_400_000) / 1000) * 1000);
   const [link] = await db
     .insert(recordLinks)
     .values({ organisationId: input.organisationId, visitId: input.visitId, expiresAt, createdBy: input.createdBy })
@@ -75,7 +76,7 @@ export async function resolveRecordToken(db: Executor, token: string, { touch = 
   if (!row || row.revokedAt) {
     throw new HttpError(404, 'This link is no longer available. Ask the business to send you a new one.');
   }
-  if (row.expiresAt.getTime() !== verified.expiresAt.getTime()) {
+  if (Math.floor(row.expiresAt.getTime() / 1000) !== Math.floor(verified.expiresAt.getTime() / 1000)) {
     throw new HttpError(404, 'This link is not valid. Ask the business to send you a new one.');
   }
   if (touch) {

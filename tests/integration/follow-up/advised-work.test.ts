@@ -39,7 +39,7 @@ describe('advised work', () => {
     advisedId = priced.json.advisedWorkId;
     const page = await (await call(null, `/record/${token}`)).text();
     // 85.00 net + 20 % tax.
-    expect(page).toContain('Approve £102.00');
+    expect(page).toContain('Price £102.00 including tax');
   });
 
   it('is approved by the customer on the link, and only on that link', async () => {
