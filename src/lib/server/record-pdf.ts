@@ -176,7 +176,7 @@ export async function renderRecordPdf(record: ServiceRecord, photoBytes?: PhotoB
     for (const r of section.readings) {
       const value = r.value !== null ? formatQuantity(r.value, r.unit) : (r.textValue ?? '');
       const expected =
-        r.expectedMin !== null && r.expectedMax !== null ? `expected ${formatQuantity(r.expectedMin, null)}–${formatQuantity(r.expectedMax, null)} ${unitSymbol(r.unit)}`.trim() : '';
+        r.expectedMin !== null && r.expectedMax !== null ? `expected ${formatQuantity(r.expectedMin, null)} to ${formatQuantity(r.expectedMax, null)} ${unitSymbol(r.unit)}`.trim() : '';
       const y = doc.y;
       doc.font('body').fontSize(10).fillColor(INK).text(r.label, MARGIN + 8, y, { width: width * 0.5 });
       const after = doc.y;
