@@ -1,14 +1,8 @@
-// Showing integer minor units as money. ISO 4217 gives each currency its minor unit (GBP and EUR
-// 2 digits, JPY 0); Intl knows the table, so we ask it rather than keep our own copy.
+// Showing integer minor units as money comes from the trade calculations (one formatter for the
+// whole app); reading an amount a person typed is ours.
+import { minorDigits } from '../trade';
 
-export function minorDigits(currency: string): number {
-  return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
-}
-
-export function formatMoney(minor: number, currency: string, locale = 'en-GB'): string {
-  const digits = minorDigits(currency);
-  return new Intl.NumberFormat(locale, { style: 'currency', currency, minimumFractionDigits: digits }).format(minor / 10 ** digits);
-}
+export { formatMoney, minorDigits } from '../trade';
 
 /** "12.50" typed by a person to 1250 minor units; undefined when it is not an amount. */
 export function parseMoney(text: string, currency: string): number | undefined {

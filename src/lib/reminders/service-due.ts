@@ -1,14 +1,17 @@
 // When a vehicle's next service falls due, and when to remind its keeper. Due by date or by
 // distance, whichever comes first (PRODUCT.md; TRADE-REFERENCES.md section 10, common practice).
-// The distance limit becomes a date by estimating the vehicle's daily distance from its odometer
-// history. Pure: dates are calendar days as 'yyyy-MM-dd' strings in the business's time zone.
-import { addDays, addMonths, differenceInCalendarDays, format, parseISO } from 'date-fns';
+// The limits themselves come from the trade calculation (lib/trade nextServiceDue); here the distance
+// limit becomes a date by estimating the vehicle's daily distance from its odometer history.
+// Pure: dates are calendar days as 'yyyy-MM-dd' strings in the business's time zone.
+import { addDays, differenceInCalendarDays, format, parseISO } from 'date-fns';
+import { nextServiceDue } from '../trade';
 
 export type OdometerReading = { date: string; odometer: number };
 
 export type ServiceDueInput = {
   last: { date: string; odometer: number | null };
-  interval: { months: number | null; distance: number | null };
+  /** The distance is in the odometer's unit. */
+  interval: { months: number | null; distance: number | null; unit?: 'km' | '[mi_i]' };
   /** Readings in the same unit as the interval distance, any order; the last service counts too. */
   history: readonly OdometerReading[];
 };
@@ -40,9 +43,16 @@ export function dailyDistance(history: readonly OdometerReading[]): number | nul
 
 export function serviceDue(input: ServiceDueInput): ServiceDue {
   const { last, interval } = input;
-  // date-fns addMonths clamps to the month's end: 2024-02-29 + 12 months = 2025-02-28.
-  const dueDate = interval.months ? format(addMonths(parseISO(last.date), interval.months), 'yyyy-MM-dd') : null;
-  const dueOdometer = interval.distance && last.odometer !== null ? last.odometer + interval.distance : null;
+  if (!interval.months && !interval.distance) {
+    return { dueDate: null, dueOdometer: null, distanceDate: null, date: null, trigger: null, dailyDistance: null };
+  }
+  const limits = nextServiceDue({
+    last: { date: last.date, odometer: last.odometer },
+    interval: { months: interval.months, distance: interval.distance, unit: interval.unit ?? 'km' },
+    today: last.date,
+  });
+  const dueDate = limits.dueDate;
+  const dueOdometer = limits.dueOdometer;
   const perDay = dailyDistance([...input.history, ...(last.odometer !== null ? [{ date: last.date, odometer: last.odometer }] : [])]);
   let distanceDate: string | null = null;
   if (dueOdometer !== null && perDay !== null && perDay > 0) {

@@ -47,7 +47,7 @@ export async function scanReminders(organisationId: string, now = new Date()): P
     result.checked += 1;
     const due = serviceDue({
       last: basis.last,
-      interval: { months: vehicle.serviceIntervalMonths, distance: vehicle.serviceIntervalDistance },
+      interval: { months: vehicle.serviceIntervalMonths, distance: vehicle.serviceIntervalDistance, unit: vehicle.odometerUnit },
       history: basis.history,
     });
     if (!due.date || !due.trigger || !reminderIsDue(due.date, today, org.reminderLeadDays)) continue;

@@ -143,7 +143,7 @@ export async function loadServiceRecord(db: Executor, organisationId: string, vi
     const history = await odometerHistory(db, vehicle.id, org.timeZone);
     const due = serviceDue({
       last: { date: localDate(signOff.signedAt, org.timeZone), odometer: signOff.odometer },
-      interval: { months: vehicle.serviceIntervalMonths, distance: vehicle.serviceIntervalDistance },
+      interval: { months: vehicle.serviceIntervalMonths, distance: vehicle.serviceIntervalDistance, unit: vehicle.odometerUnit },
       history,
     });
     nextService = { dueDate: due.dueDate, dueOdometer: due.dueOdometer, distanceDate: due.distanceDate, unit };
