@@ -11,7 +11,7 @@ export const draftLinesBody = z.object({
         kind: z.enum(INVOICE_LINE_KINDS),
         description: z.string().trim().min(1, 'needs a description').max(200),
         partNumber: z.string().trim().max(60).nullable().default(null),
-        quantity: z.number().finite().positive('must be above zero').max(10_000),
+        quantity: z.number().positive('must be above zero').max(10_000),
         unit: z.string().trim().min(1).max(32),
         unitPriceMinor: z.number().int('must be whole minor units').min(0).max(100_000_000),
         discountMinor: z.number().int().min(0).max(100_000_000).default(0),
