@@ -46,8 +46,9 @@ test('a customer approves advised work and pays from the record link', async ({ 
     await desk.goto('/office/advised-work?show=approved');
     await expect(desk.getByText('Coolant drain and refill')).toBeVisible();
     await desk.screenshot({ path: shot('office-advised'), fullPage: true });
-    await desk.getByRole('button', { name: 'Book visit' }).click();
-    await expect(desk.getByText('Booked')).toBeVisible();
+    // The form reloads the page once the visit is booked; wait for that load before moving on.
+    await Promise.all([desk.waitForEvent('load'), desk.getByRole('button', { name: 'Book visit' }).click()]);
+    await expect(desk.getByText('Booked', { exact: true })).toBeVisible();
     await desk.goto('/office/invoices');
     await desk.screenshot({ path: shot('office-invoices'), fullPage: true });
     await desk.goto(`/office/invoices/${invoiceId}`);
