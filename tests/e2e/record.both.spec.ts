@@ -6,6 +6,8 @@ import { createSignedOffVisit } from '../support/visit-fixtures';
 import { newClientAddress } from '../support/client-address';
 
 test('a customer approves advised work and pays from the record link', async ({ page, browser }, testInfo) => {
+  // A long flow through two sites (the app and the payment fake) on a shared, busy machine.
+  test.setTimeout(180_000);
   const org = await createOrganisation('Record e2e');
   const visit = await createSignedOffVisit(org);
   const office = await browser.newContext({ viewport: { width: 1440, height: 900 }, extraHTTPHeaders: { 'x-forwarded-for': newClientAddress() } });
