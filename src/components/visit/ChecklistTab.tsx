@@ -1,5 +1,7 @@
-// The checklist by section: one-tap ticks with undo, readings through the number pad, parts
-// fitted from the vehicle's spec, and "not applicable" for what this car does not have.
+// The checklist by section: one-tap ticks with undo, "not applicable" for a check this car has
+// no use for, readings through the number pad, parts fitted from the vehicle's spec. (The sync
+// contract has no "not applicable" for readings and parts: the server accepts a `check` only on
+// a check item, so those stay "not done" on the record unless recorded.)
 import { lazy, Suspense, useEffect, useState } from 'react';
 import type { CheckState } from '../../lib/device/db';
 import { savePartLine, recordReading, setCheck } from '../../lib/device/visit-actions';
@@ -191,7 +193,6 @@ function ItemRow({ item, data, settings, locked, state, onTick, onSkip, onOpenPa
             </button>
           </>
         )}
-        {item.kind !== 'check' && <SkipButton item={item} skipped={skipped} locked={locked} onSkip={onSkip} />}
       </div>
       {item.caution && (
         <p className="flex gap-2 rounded-lg border-2 border-sev-soon bg-sev-soon/10 p-2 text-base">
@@ -276,7 +277,7 @@ function PartValue({ item, data, locked, onFit }: { item: ItemOf; data: TabProps
   if (!suggestion) {
     return (
       <p className="text-base">
-        No part for this on the vehicle’s spec. Add one on <a href="#parts" className="font-bold text-brand underline">Parts</a>, or mark it N/A.
+        No part for this on the vehicle’s spec. Add one on <a href="#parts" className="font-bold text-brand underline">Parts</a> if you fitted one; if not, the record shows it as not done.
       </p>
     );
   }

@@ -99,7 +99,7 @@ export default function PartsTab({ device, data, locked }: TabProps) {
                       <span>Fitted</span>
                     </button>
                   ) : (
-                    <p className="text-base">Not on this vehicle’s spec: add the part below, or mark the item N/A on the checklist.</p>
+                    <p className="text-base">Not on this vehicle’s spec: add the part below if you fitted one.</p>
                   )}
                 </li>
               );

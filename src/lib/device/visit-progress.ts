@@ -10,12 +10,12 @@ export type Recorded = {
   partLines: readonly LocalPartLine[];
 };
 
-/** Marked "not applicable" (a check state of `skipped`, which any kind of item may carry). */
+/** Marked "not applicable": a check item in the state `skipped`. */
 export function itemSkipped(item: ItemOf, recorded: Recorded): boolean {
   return recorded.checks.some((c) => c.itemId === item.id && c.state === 'skipped');
 }
 
-/** An item counts as dealt with once ticked, read, its part fitted, or marked not applicable. */
+/** An item counts as dealt with once ticked or marked not applicable, read, or its part fitted. */
 export function itemDone(item: ItemOf, recorded: Recorded): boolean {
   if (itemSkipped(item, recorded)) return true;
   switch (item.kind) {

@@ -52,14 +52,17 @@ describe('visit progress', () => {
     expect(visitProgress(version, none)).toEqual({ done: 0, total: 4 });
   });
 
-  it('counts a tick, a reading, a fitted part and a not-applicable, but not an unticked check or a removed part', () => {
+  it('counts a not-applicable check, a reading and a fitted part, but not a removed part', () => {
+    const line = { id: 'l', visitId: 'v', itemId: ids.oilFilter, partId: null, partNumber: 'OF', description: '', quantity: 1, unit: '{each}', removed: false, stamp: S };
     const recorded = {
-      checks: [{ visitId: 'v', itemId: ids.check, state: 'done' as const, stamp: S }, { visitId: 'v', itemId: ids.oilGrade, state: 'skipped' as const, stamp: S }],
+      checks: [{ visitId: 'v', itemId: ids.check, state: 'skipped' as const, stamp: S }],
       readings: [{ visitId: 'v', itemId: ids.tread, value: 4, textValue: null, unit: 'mm', stamp: S }],
-      partLines: [{ id: 'l', visitId: 'v', itemId: ids.oilFilter, partId: null, partNumber: 'OF', description: '', quantity: 1, unit: '{each}', removed: true, stamp: S }],
+      partLines: [line],
     };
     expect(visitProgress(version, recorded)).toEqual({ done: 3, total: 4 });
-    expect(itemsLeft(version, recorded).map((i) => i.id)).toEqual([ids.oilFilter]);
+    expect(itemsLeft(version, recorded).map((i) => i.id)).toEqual([ids.oilGrade]);
+    const removed = { ...recorded, partLines: [{ ...line, removed: true }] };
+    expect(itemsLeft(version, removed).map((i) => i.id)).toEqual([ids.oilFilter, ids.oilGrade]);
     const unticked = { ...none, checks: [{ visitId: 'v', itemId: ids.check, state: 'not_yet' as const, stamp: S }] };
     expect(itemDone(version.sections[0]!.items[0]!, unticked)).toBe(false);
   });
