@@ -1,6 +1,8 @@
 // Today's round (and the days around it that are on the phone): each visit in order, with its
 // slot, place, vehicle, progress, and whether everything it needs offline is on the phone.
+import { useEffect, useState } from 'react';
 import type { Device } from '../../lib/device/boot';
+import type { StorageState } from '../../lib/device/pwa';
 import type { LocalCustomer, LocalVehicle, LocalVisit } from '../../lib/device/db';
 import { visitProgress, type Progress } from '../../lib/device/visit-progress';
 import { formatDay, formatTime, todayIso } from '../phone/format';
@@ -47,6 +49,10 @@ async function loadRound({ db }: Device): Promise<RoundRow[]> {
 export function RoundScreen({ device }: { device: Device }) {
   const loaded = useLiveQuery(() => loadRound(device), [device]);
   const shellCached = useShellCached();
+  const [storage, setStorage] = useState<StorageState | null>(null);
+  useEffect(() => {
+    void device.storage.then(setStorage);
+  }, [device]);
   const today = todayIso();
   if (!loaded) return <p className="p-4">Loading the round…</p>;
   // A visit is ready offline once its data is on the phone and the app itself is cached.
@@ -63,6 +69,12 @@ export function RoundScreen({ device }: { device: Device }) {
           Today · {formatDay(today)}
         </h2>
         <p className="text-base">Signed in as {device.user.name}.</p>
+        {(storage === 'refused' || storage === 'unsupported') && (
+          <p className="rounded-lg border-2 border-sev-soon bg-white p-3 text-base" role="status" data-testid="storage-warning">
+            <strong>This browser may clear the app’s data</strong> if the phone runs low on storage, so sync whenever you have signal. Installing Tickover to the home screen
+            usually lets it keep the data. <a href="/device" className="font-bold underline">More on This phone</a>
+          </p>
+        )}
         {!shellCached && (
           <p className="rounded-lg border-2 border-sev-watch bg-white p-3 text-base" role="status">
             Getting the app ready to work without signal. Keep it open while you have signal.
