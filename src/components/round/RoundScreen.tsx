@@ -3,6 +3,7 @@
 import { useEffect, useState } from 'react';
 import type { Device } from '../../lib/device/boot';
 import type { StorageState } from '../../lib/device/pwa';
+import { markStorageNoticeSeen, storageNoticeSeen } from '../../lib/device/settings';
 import type { LocalCustomer, LocalVehicle, LocalVisit } from '../../lib/device/db';
 import { visitProgress, type Progress } from '../../lib/device/visit-progress';
 import { formatDay, formatTime, todayIso } from '../phone/format';
@@ -51,7 +52,7 @@ export function RoundScreen({ device }: { device: Device }) {
   const shellCached = useShellCached();
   const [storage, setStorage] = useState<StorageState | null>(null);
   useEffect(() => {
-    void device.storage.then(setStorage);
+    void Promise.all([device.storage, storageNoticeSeen()]).then(([state, seen]) => setStorage(seen ? null : state));
   }, [device]);
   const today = todayIso();
   if (!loaded) return <p className="p-4">Loading the round…</p>;
@@ -70,10 +71,20 @@ export function RoundScreen({ device }: { device: Device }) {
         </h2>
         <p className="text-base">Signed in as {device.user.name}.</p>
         {(storage === 'refused' || storage === 'unsupported') && (
-          <p className="rounded-lg border-2 border-sev-soon bg-white p-3 text-base" role="status" data-testid="storage-warning">
+          <div className="rounded-lg border-2 border-sev-soon bg-white p-3 text-base" role="status" data-testid="storage-warning">
             <strong>This browser may clear the app’s data</strong> if the phone runs low on storage, so sync whenever you have signal. Installing Tickover to the home screen
             usually lets it keep the data. <a href="/device" className="font-bold underline">More on This phone</a>
-          </p>
+            <button
+              type="button"
+              onClick={() => {
+                setStorage(null);
+                void markStorageNoticeSeen();
+              }}
+              className="mt-2 block min-h-12 rounded-lg border-2 border-ink/40 px-4 font-bold"
+            >
+              Got it
+            </button>
+          </div>
         )}
         {!shellCached && (
           <p className="rounded-lg border-2 border-sev-watch bg-white p-3 text-base" role="status">

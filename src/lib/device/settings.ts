@@ -32,3 +32,14 @@ export async function readRegion(): Promise<TreadRegion> {
 export async function saveRegion(region: TreadRegion): Promise<void> {
   await set(REGION_KEY, region);
 }
+
+const STORAGE_NOTICE_KEY = 'tickover:storage-notice-seen';
+
+/** The round says once that the browser refused to keep our data; This phone always says it. */
+export async function storageNoticeSeen(): Promise<boolean> {
+  return (await get<boolean>(STORAGE_NOTICE_KEY)) === true;
+}
+
+export async function markStorageNoticeSeen(): Promise<void> {
+  await set(STORAGE_NOTICE_KEY, true);
+}
