@@ -52,7 +52,7 @@ test('a whole visit offline, from cold start to sign-off, then synced to the off
   await page.close();
   const cold = await openRound(context);
   expect(await isOffline(cold)).toBe(true);
-  await expect(cold.getByRole('heading', { name: /Today/ })).toBeVisible();
+  await expect(cold.getByRole('heading', { name: /^Today ·/ })).toBeVisible();
   const coldCard = cold.getByRole('link', { name: new RegExp(`${round.customerName}, ${round.registration}`) });
   await expect(coldCard.getByText('Ready offline')).toBeVisible();
   await coldCard.click();

@@ -41,6 +41,10 @@ export type SyncDeps = {
 
 export type SyncReport = { pushed: number; rejected: number; pulledPages: number; photosUploaded: number };
 
+// A request that connects but never answers (weak signal) must not hold sync up: give up, back
+// off, try again. Push and pull bodies are small; photos have their own, longer limit.
+const REQUEST_TIMEOUT_MS = 30_000;
+
 // A runaway server answering hasMore forever must not keep the phone busy for ever.
 const MAX_PULL_PAGES_PER_RUN = 200;
 
@@ -60,7 +64,7 @@ export async function syncOnce(deps: SyncDeps): Promise<SyncReport> {
 async function request(deps: SyncDeps, path: string, init?: RequestInit): Promise<Response> {
   let response: Response;
   try {
-    response = await deps.fetch(`${deps.baseUrl ?? ''}${path}`, { credentials: 'same-origin', ...init });
+    response = await deps.fetch(`${deps.baseUrl ?? ''}${path}`, { credentials: 'same-origin', signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS), ...init });
   } catch {
     throw new OfflineError('No connection to the server. Your changes are safe on this phone.');
   }

@@ -155,6 +155,9 @@ function xhrPut(url: string, blob: Blob, contentType: string, onProgress: (loade
   return new Promise<{ status: number; body: string }>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open('PUT', url);
+    // A downscaled photo is a few hundred kilobytes: two minutes covers a crawl of a connection.
+    xhr.timeout = 120_000;
+    xhr.ontimeout = () => reject(new Error('timeout'));
     xhr.withCredentials = true;
     xhr.setRequestHeader('content-type', contentType);
     xhr.upload.onprogress = (event) => onProgress(event.loaded);
