@@ -6,10 +6,13 @@ type Props = { title: string; onClose: () => void; footer?: ReactNode; children:
 
 export function Sheet({ title, onClose, footer, children, closeLabel = 'Close' }: Props) {
   const ref = useRef<HTMLDivElement>(null);
+  const close = useRef(onClose);
+  close.current = onClose;
+  // Once per opening: a parent re-rendering (a sync landing) must not pull focus out of a field.
   useEffect(() => {
     ref.current?.focus();
     const onKey = (event: KeyboardEvent) => {
-      if (event.key === 'Escape') onClose();
+      if (event.key === 'Escape') close.current();
     };
     document.addEventListener('keydown', onKey);
     const overflow = document.body.style.overflow;
@@ -18,7 +21,7 @@ export function Sheet({ title, onClose, footer, children, closeLabel = 'Close' }
       document.removeEventListener('keydown', onKey);
       document.body.style.overflow = overflow;
     };
-  }, [onClose]);
+  }, []);
 
   return (
     <div role="dialog" aria-modal="true" aria-label={title} className="fixed inset-0 z-40 flex justify-center bg-ink/40">
