@@ -11,7 +11,7 @@ import { mergePhotoAdd, mergePhotoRemove } from './merge-photo';
 import { mergePartLine } from './merge-part-line';
 import { lockOf, signOffFrom } from './merge-sign-off';
 
-export const CONFLICT_REASONS = ['concurrent_edit', 'visit_locked', 'visit_cancelled'] as const;
+export const CONFLICT_REASONS = ['concurrent_edit', 'visit_locked', 'visit_cancelled', 'visit_reassigned'] as const;
 export type ConflictReason = (typeof CONFLICT_REASONS)[number];
 
 export type RecordedConflict = ConflictDraft & { reason: ConflictReason };
