@@ -51,15 +51,15 @@ export async function loadLedgers(db: Executor, visits: VisitRow[], operations: 
   const within = <T extends { visitId: unknown }>(table: T) => inArray(table.visitId as never, visitIds);
   const ledgerOf = (visitId: string) => ledgers.get(visitId)!;
 
-  const [checks, readings, findings, notes, photos, lines, signOffs, history] = await Promise.all([
-    some(ids(['check']), (list) => db.select().from(s.checkResults).where(and(within(s.checkResults), inArray(s.checkResults.itemId, list)))),
-    some(ids(['reading']), (list) => db.select().from(s.readingResults).where(and(within(s.readingResults), inArray(s.readingResults.itemId, list)))),
-    some(ids(['finding']), (list) => db.select().from(s.findings).where(and(within(s.findings), inArray(s.findings.id, list)))),
-    some(ids(['note']), (list) => db.select().from(s.visitNotes).where(and(within(s.visitNotes), inArray(s.visitNotes.id, list)))),
-    some(ids(['photo.add', 'photo.remove']), (list) => db.select().from(s.photos).where(and(within(s.photos), inArray(s.photos.id, list)))),
-    some(ids(['part_line']), (list) => db.select().from(s.partLines).where(and(within(s.partLines), inArray(s.partLines.id, list)))),
-    db.select().from(s.signOffs).where(and(within(s.signOffs), isNull(s.signOffs.voidedAt))),
-    some(ids(['reading', 'photo.add', 'photo.remove']), (list) =>
+  // One after another: these run on the transaction's single connection.
+  const checks = await some(ids(['check']), (list) => db.select().from(s.checkResults).where(and(within(s.checkResults), inArray(s.checkResults.itemId, list))));
+  const readings = await some(ids(['reading']), (list) => db.select().from(s.readingResults).where(and(within(s.readingResults), inArray(s.readingResults.itemId, list))));
+  const findings = await some(ids(['finding']), (list) => db.select().from(s.findings).where(and(within(s.findings), inArray(s.findings.id, list))));
+  const notes = await some(ids(['note']), (list) => db.select().from(s.visitNotes).where(and(within(s.visitNotes), inArray(s.visitNotes.id, list))));
+  const photos = await some(ids(['photo.add', 'photo.remove']), (list) => db.select().from(s.photos).where(and(within(s.photos), inArray(s.photos.id, list))));
+  const lines = await some(ids(['part_line']), (list) => db.select().from(s.partLines).where(and(within(s.partLines), inArray(s.partLines.id, list))));
+  const signOffs = await db.select().from(s.signOffs).where(and(within(s.signOffs), isNull(s.signOffs.voidedAt)));
+  const history = await some(ids(['reading', 'photo.add', 'photo.remove']), (list) =>
       db
         .select({
           opId: s.syncOperations.opId,
@@ -72,8 +72,7 @@ export async function loadLedgers(db: Executor, visits: VisitRow[], operations: 
         })
         .from(s.syncOperations)
         .where(and(within(s.syncOperations), inArray(s.syncOperations.entityId, list))),
-    ),
-  ]);
+    );
 
   for (const r of checks) ledgerOf(r.visitId).checks.set(r.itemId, asStanding({ state: r.state, stamp: stamp(r.stamp), opId: r.opId, author: r.updatedBy }));
   for (const r of readings) {
