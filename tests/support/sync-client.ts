@@ -31,3 +31,12 @@ export async function pullAll(session: Session, cursor = '0', limit?: number) {
     if (!response.json.hasMore) return { pages, cursor };
   }
 }
+
+/** All pages' rows together, as one response would hold them. */
+export function mergePages(pages: PullResponse[]): PullResponse {
+  const merged = { ...pages[pages.length - 1]! };
+  for (const key of Object.keys(merged) as (keyof PullResponse)[]) {
+    if (Array.isArray(merged[key])) (merged as Record<string, unknown>)[key] = pages.flatMap((p) => p[key] as unknown[]);
+  }
+  return merged;
+}

@@ -12,7 +12,7 @@ import { entityIdOf, operationSchema, type Operation, type OperationKind, type O
 import { applyOperation, invalidForVisit, type RecordedConflict } from '../../sync/apply-operation';
 import { boundStamp, normaliseSeen } from '../../sync/stamp-bound';
 import { loadLedgers, type VisitRow } from './load-ledgers';
-import { persistLedgers, type StoredObject } from './persist-ledgers';
+import { persistLedgers } from './persist-ledgers';
 import { runPostApplyHooks } from './hooks';
 import type { ServerClock } from './server-clock';
 
@@ -102,7 +102,7 @@ export async function applyBatch(
 
   await writeOperations(tx, user, recorded, conflicts);
   await pauseIfFaultInjected(tx);
-  await persistLedgers(tx, ledgers.values(), objects);
+  await persistLedgers(tx, user.organisationId, ledgers.values());
   await runPostApplyHooks(tx, applied);
   await saveDeviceState(tx, user, deviceId, device, recorded);
   logBounded(user, deviceId, recorded, nowMs);
@@ -216,7 +216,7 @@ async function rejectForeignIds(tx: Transaction, candidates: Candidate[], answer
 
 async function storedObjects(tx: Transaction, organisationId: string, candidates: Candidate[]) {
   const hashes = [...new Set(candidates.flatMap((c) => (c.op.kind === 'photo.add' ? [c.op.payload.sha256] : [])))];
-  const objects = new Map<string, StoredObject & { contentType: 'image/jpeg' | 'image/png' | 'image/webp'; sizeBytes: number; width: number; height: number }>();
+  const objects = new Map<string, { contentType: 'image/jpeg' | 'image/png' | 'image/webp'; sizeBytes: number; width: number; height: number }>();
   if (hashes.length === 0) return objects;
   const rows = await tx
     .select()

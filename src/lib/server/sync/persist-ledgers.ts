@@ -6,8 +6,7 @@ import type { Transaction } from '../../../db/client';
 import * as s from '../../../db/schema';
 import { nextChangeSeq } from '../../../db/schema';
 import type { Ledger } from '../../sync/ledger';
-
-export type StoredObject = { objectKey: string; thumbnailKey: string };
+import { photoKeys } from '../photos/photo-bytes';
 
 function dirtyOf(ledger: Ledger, table: string): string[] {
   const prefix = `${table}:`;
@@ -40,7 +39,7 @@ async function upsert<T extends PgTable & { visitId: PgColumn }>(
     .onConflictDoUpdate({ target, set, setWhere: sql`${table.visitId} = excluded."visit_id"` });
 }
 
-export async function persistLedgers(tx: Transaction, ledgers: Iterable<Ledger>, objects: ReadonlyMap<string, StoredObject>) {
+export async function persistLedgers(tx: Transaction, organisationId: string, ledgers: Iterable<Ledger>) {
   const checks: (typeof s.checkResults.$inferInsert)[] = [];
   const readings: (typeof s.readingResults.$inferInsert)[] = [];
   const findings: (typeof s.findings.$inferInsert)[] = [];
@@ -82,8 +81,8 @@ export async function persistLedgers(tx: Transaction, ledgers: Iterable<Ledger>,
     }
     for (const id of dirtyOf(ledger, 'photo')) {
       const p = ledger.photos.get(id)!;
-      const stored = objects.get(p.sha256);
-      if (!stored) throw new Error(`photo ${id} names bytes the server does not hold`);
+      // Keys derive from the hash; the push checked the bytes are stored before any photo.add.
+      const stored = photoKeys(organisationId, p.sha256);
       photos.push({
         id,
         visitId,
