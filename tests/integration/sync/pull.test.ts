@@ -118,7 +118,8 @@ describe('pull', () => {
     await writer.connect();
     try {
       await writer.query('begin');
-      await writer.query('select pg_advisory_xact_lock(731001, hashtext($1))', [org.organisationId]);
+      // As every writer of synced rows does (lib/server/change-feed.ts).
+      await writer.query('select pg_advisory_xact_lock_shared(731001, hashtext($1))', [org.organisationId]);
       const inserted = await writer.query<{ change_seq: string }>(
         `insert into model_notes (organisation_id, make, model, title, body) values ($1, 'Corvane', 'Estrel', 'Late note', 'Written slowly.') returning change_seq`,
         [org.organisationId],

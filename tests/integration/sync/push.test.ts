@@ -200,6 +200,17 @@ describe('push: what is refused', () => {
     expect(await recordedCount(visitId)).toBe(0);
   });
 
+  it('refuses a device-made id that already names a thing on another visit, leaving that thing alone', async () => {
+    const [first, second] = [await createVisit(org, setup), await createVisit(org, setup)];
+    const phone = device('tara');
+    const findingId = randomUUID();
+    await pushOk(tech, phone.deviceId, [phone.finding(first, findingId, 'soon', { title: 'Original' })]);
+    const clash = phone.finding(second, findingId, 'ok', { title: 'Overwritten?' });
+    expect((await pushOk(tech, phone.deviceId, [clash])).get(clash.opId)).toMatchObject({ outcome: 'rejected', reason: expect.stringMatching(/another visit/) });
+    const [finding] = await testDb().select().from(s.findings).where(eq(s.findings.id, findingId));
+    expect(finding).toMatchObject({ visitId: first, title: 'Original', severity: 'soon' });
+  });
+
   it('refuses an operation sent under another device’s name', async () => {
     const visitId = await createVisit(org, setup);
     const phone = device('tara');

@@ -11,7 +11,7 @@ import { decodeStamp, type Stamp } from '../../sync/clock';
 import { entityIdOf, operationSchema, type Operation, type OperationKind, type OperationResult } from '../../sync/operations';
 import { applyOperation, invalidForVisit, type RecordedConflict } from '../../sync/apply-operation';
 import { boundStamp, normaliseSeen } from '../../sync/stamp-bound';
-import { loadLedgers, type VisitRow } from './load-ledgers';
+import { loadLedgers, ownerOf, type VisitRow } from './load-ledgers';
 import { persistLedgers } from './persist-ledgers';
 import { runPostApplyHooks } from './hooks';
 import type { ServerClock } from './server-clock';
@@ -27,13 +27,6 @@ type Recorded = {
   reason: string | undefined;
 };
 
-const DEVICE_MADE_IDS = {
-  finding: s.findings,
-  note: s.visitNotes,
-  'photo.add': s.photos,
-  'photo.remove': s.photos,
-  part_line: s.partLines,
-} as const;
 
 export async function applyBatch(
   tx: Transaction,
@@ -49,14 +42,15 @@ export async function applyBatch(
   };
 
   let candidates = parseAll(raw, deviceId, answer);
-  candidates = await skipDuplicates(tx, user, candidates, answer);
+  // Locking the visits first orders pushes to the same visit (a retry racing its original
+  // included): the second waits here and then sees what the first committed.
   const { visits, reassigned } = await authoriseVisits(tx, user, candidates);
+  candidates = await skipDuplicates(tx, user, candidates, answer);
   candidates = candidates.filter((c) => {
     if (visits.has(c.op.visitId)) return true;
     answer(c.index, 'rejected', `visit ${c.op.visitId}: no such visit`);
     return false;
   });
-  candidates = await rejectForeignIds(tx, candidates, answer);
   const objects = await storedObjects(tx, user.organisationId, candidates);
   candidates = candidates.flatMap((c) => {
     if (c.op.kind !== 'photo.add') return [c];
@@ -70,7 +64,7 @@ export async function applyBatch(
     return [{ ...c, op: { ...c.op, payload: { ...c.op.payload, contentType, sizeBytes, width, height } } }];
   });
 
-  const ledgers = await loadLedgers(tx, [...visits.values()], candidates.map((c) => c.op));
+  const { ledgers, owners } = await loadLedgers(tx, [...visits.values()], candidates.map((c) => c.op));
   const device = await deviceState(tx, user, deviceId);
   const boundedEarlier = await boundedStampsNamed(tx, user.organisationId, deviceId, candidates, device.everBounded);
 
@@ -79,7 +73,9 @@ export async function applyBatch(
   const applied = new Map<string, Set<OperationKind>>();
   for (const { index, op } of candidates) {
     const ledger = ledgers.get(op.visitId)!;
-    const invalid = invalidForVisit(ledger, op);
+    const owner = ownerOf(owners, op);
+    const invalid =
+      owner !== undefined && owner !== op.visitId ? `id ${entityIdOf(op)} is already used on another visit; make a new id` : invalidForVisit(ledger, op);
     if (invalid) {
       answer(index, 'rejected', invalid);
       continue;
@@ -177,6 +173,8 @@ async function authoriseVisits(tx: Transaction, user: Pusher, candidates: Candid
         })
         .from(s.visits)
         .where(and(inArray(s.visits.id, visitIds), eq(s.visits.organisationId, user.organisationId)))
+        // Always in id order, so two batches that share visits cannot deadlock.
+        .orderBy(s.visits.id)
         .for('update')
     : [];
   const visits = new Map(rows.map((v) => [v.id, v]));
@@ -195,23 +193,6 @@ async function authoriseVisits(tx: Transaction, user: Pusher, candidates: Candid
     }
   }
   return { visits, reassigned };
-}
-
-/** Ids made on a device must not name a row of another visit. */
-async function rejectForeignIds(tx: Transaction, candidates: Candidate[], answer: (i: number, o: 'rejected', r: string) => void) {
-  const owner = new Map<string, string>();
-  for (const table of new Set(Object.values(DEVICE_MADE_IDS))) {
-    const ids = candidates.filter((c) => DEVICE_MADE_IDS[c.op.kind as keyof typeof DEVICE_MADE_IDS] === table).map((c) => entityIdOf(c.op));
-    if (ids.length === 0) continue;
-    const rows = await tx.select({ id: table.id, visitId: table.visitId }).from(table).where(inArray(table.id, ids));
-    for (const r of rows) owner.set(r.id, r.visitId);
-  }
-  return candidates.filter(({ index, op }) => {
-    const visitId = op.kind in DEVICE_MADE_IDS ? owner.get(entityIdOf(op)) : undefined;
-    if (visitId === undefined || visitId === op.visitId) return true;
-    answer(index, 'rejected', `id ${entityIdOf(op)} is already used on another visit; make a new id`);
-    return false;
-  });
 }
 
 async function storedObjects(tx: Transaction, organisationId: string, candidates: Candidate[]) {

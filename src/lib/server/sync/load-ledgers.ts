@@ -41,24 +41,45 @@ async function checklistItems(db: Executor, versionIds: string[]) {
   return result;
 }
 
-export async function loadLedgers(db: Executor, visits: VisitRow[], operations: Operation[]): Promise<Map<string, Ledger>> {
+/** Where a device-made id already lives: "table:id" to its visit (see `ownerOf`). */
+export type IdOwners = ReadonlyMap<string, string>;
+
+/** The visit that already holds the thing an operation names by a device-made id, if any. */
+export function ownerOf(owners: IdOwners, op: Operation): string | undefined {
+  const table = op.kind.startsWith('photo.') ? 'photo' : op.kind;
+  return owners.get(`${table}:${entityIdOf(op)}`);
+}
+
+// Visits in these states have a live sign-off; no other state does (a sign-off sets signed_off,
+// reopening voids it), so only these need their sign-off loaded.
+const SIGNED = ['signed_off', 'reviewed', 'invoiced', 'paid'];
+
+export async function loadLedgers(db: Executor, visits: VisitRow[], operations: Operation[]): Promise<{ ledgers: Map<string, Ledger>; owners: IdOwners }> {
   const visitIds = visits.map((v) => v.id);
   const items = await checklistItems(db, [...new Set(visits.map((v) => v.templateVersionId))]);
   const ledgers = new Map(visits.map((v) => [v.id, emptyLedger(v.id, items.get(v.templateVersionId)!, v.status)] as const));
-  if (visitIds.length === 0) return ledgers;
+  const owners = new Map<string, string>();
+  if (visitIds.length === 0) return { ledgers, owners };
+  const signed = visits.filter((v) => SIGNED.includes(v.status)).map((v) => v.id);
 
   const ids = (kinds: Operation['kind'][]) => [...new Set(operations.filter((o) => kinds.includes(o.kind)).map(entityIdOf))];
   const within = <T extends { visitId: unknown }>(table: T) => inArray(table.visitId as never, visitIds);
   const ledgerOf = (visitId: string) => ledgers.get(visitId)!;
+  // Device-made ids are looked up whatever visit holds them: one of another visit must not be
+  // touched, and finding it here spares a query of its own.
+  const owned = <T extends { id: string; visitId: string }>(table: string, rows: T[]) => {
+    for (const r of rows) owners.set(`${table}:${r.id}`, r.visitId);
+    return rows.filter((r) => ledgers.has(r.visitId));
+  };
 
   // One after another: these run on the transaction's single connection.
   const checks = await some(ids(['check']), (list) => db.select().from(s.checkResults).where(and(within(s.checkResults), inArray(s.checkResults.itemId, list))));
   const readings = await some(ids(['reading']), (list) => db.select().from(s.readingResults).where(and(within(s.readingResults), inArray(s.readingResults.itemId, list))));
-  const findings = await some(ids(['finding']), (list) => db.select().from(s.findings).where(and(within(s.findings), inArray(s.findings.id, list))));
-  const notes = await some(ids(['note']), (list) => db.select().from(s.visitNotes).where(and(within(s.visitNotes), inArray(s.visitNotes.id, list))));
-  const photos = await some(ids(['photo.add', 'photo.remove']), (list) => db.select().from(s.photos).where(and(within(s.photos), inArray(s.photos.id, list))));
-  const lines = await some(ids(['part_line']), (list) => db.select().from(s.partLines).where(and(within(s.partLines), inArray(s.partLines.id, list))));
-  const signOffs = await db.select().from(s.signOffs).where(and(within(s.signOffs), isNull(s.signOffs.voidedAt)));
+  const findings = owned('finding', await some(ids(['finding']), (list) => db.select().from(s.findings).where(inArray(s.findings.id, list))));
+  const notes = owned('note', await some(ids(['note']), (list) => db.select().from(s.visitNotes).where(inArray(s.visitNotes.id, list))));
+  const photos = owned('photo', await some(ids(['photo.add', 'photo.remove']), (list) => db.select().from(s.photos).where(inArray(s.photos.id, list))));
+  const lines = owned('part_line', await some(ids(['part_line']), (list) => db.select().from(s.partLines).where(inArray(s.partLines.id, list))));
+  const signOffs = await some(signed, (list) => db.select().from(s.signOffs).where(and(inArray(s.signOffs.visitId, list), isNull(s.signOffs.voidedAt))));
   const history = await some(ids(['reading', 'photo.add', 'photo.remove']), (list) =>
       db
         .select({
@@ -160,7 +181,7 @@ export async function loadLedgers(db: Executor, visits: VisitRow[], operations: 
     const key = historyKey(entry.kind, entry.entityId);
     ledger.history.set(key, [...(ledger.history.get(key) ?? []), entry]);
   }
-  return ledgers;
+  return { ledgers, owners };
 }
 
 async function some<T>(list: string[], query: (list: string[]) => Promise<T[]>): Promise<T[]> {

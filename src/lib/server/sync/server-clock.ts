@@ -13,14 +13,13 @@ export class ServerClock {
   private constructor(
     private clock: Hlc,
     private readonly organisationId: string,
-    private readonly existed: boolean,
   ) {}
 
-  /** Loads the clock; call inside the transaction that holds the change-feed lock. */
+  /** Loads the clock; call inside the writing transaction. */
   static async load(tx: Transaction, organisationId: string): Promise<ServerClock> {
     const [row] = await tx.select().from(syncClocks).where(eq(syncClocks.organisationId, organisationId));
     const clock = row ? decodeStamp(row.stamp) : { wallMs: 0, counter: 0, deviceId: SERVER_DEVICE_ID };
-    return new ServerClock(clock, organisationId, Boolean(row));
+    return new ServerClock(clock, organisationId);
   }
 
   receive(stamp: Stamp, nowMs: number): void {
@@ -38,14 +37,14 @@ export class ServerClock {
     return encodeStamp({ ...this.clock, deviceId: SERVER_DEVICE_ID });
   }
 
+  /**
+   * Pushes run side by side, so another may have moved the clock since this one loaded it: keep
+   * the later of the two (stamps compare as text in clock order, and all of these are the server's).
+   */
   async save(tx: Transaction): Promise<void> {
-    const stamp = this.current();
-    if (this.existed) await tx.update(syncClocks).set({ stamp }).where(eq(syncClocks.organisationId, this.organisationId));
-    else {
-      await tx
-        .insert(syncClocks)
-        .values({ organisationId: this.organisationId, stamp })
-        .onConflictDoUpdate({ target: syncClocks.organisationId, set: { stamp: sql`excluded.stamp` } });
-    }
+    await tx
+      .insert(syncClocks)
+      .values({ organisationId: this.organisationId, stamp: this.current() })
+      .onConflictDoUpdate({ target: syncClocks.organisationId, set: { stamp: sql`greatest(${syncClocks.stamp}, excluded.stamp)` } });
   }
 }
