@@ -1,18 +1,15 @@
-// Local stand-ins for hosted services, started on loopback by our scripts. Each is a small module
-// with `name`, `ensure(root)` (start it unless it already runs; resolve to the environment
-// variables the app reads to find it; return {} when the environment already points at a real
-// service) and `stop(root)`. Add a service by adding its module to SERVICES.
-import { s3Store } from './fakes/s3.mjs';
+// Local stand-ins for hosted services, started on loopback by our scripts. Each module in FAKES
+// has `ensure(root, { appUrl })`, starts (or reuses) its fake unless the environment already
+// points at the real service, and returns the environment variables the app reads to find it.
+import * as s3 from './fakes/s3.mjs';
+import * as smtp from './fakes/smtp.mjs';
+import * as stripe from './fakes/stripe.mjs';
 
-export const SERVICES = [s3Store];
+const FAKES = [s3, smtp, stripe];
 
 /** Starts the local fakes unless the environment already points at real services. */
-export async function ensureLocalServices(root, _options = {}) {
+export async function ensureLocalServices(root, options = {}) {
   const env = {};
-  for (const service of SERVICES) Object.assign(env, await service.ensure(root));
+  for (const fake of FAKES) Object.assign(env, await fake.ensure(root, options));
   return env;
-}
-
-export function stopLocalServices(root) {
-  for (const service of SERVICES) service.stop(root);
 }

@@ -5,19 +5,16 @@
 // as it would against a real store. Objects live as files under --data, written atomically.
 // Node's standard library only: it starts before or without node_modules.
 //
-//   node scripts/lib/fakes/s3-server.mjs --port 4569 --data .data/s3/objects
-//   (credentials from S3_FAKE_ACCESS_KEY_ID and S3_FAKE_SECRET_ACCESS_KEY)
+//   FAKE_PORT=4569 FAKE_S3_DIR=.data/s3/objects S3_FAKE_ACCESS_KEY_ID=… S3_FAKE_SECRET_ACCESS_KEY=… \
+//     node scripts/lib/fakes/s3-server.mjs      (started by s3.mjs through detached.mjs)
 import { createHash, createHmac, timingSafeEqual } from 'node:crypto';
 import { createServer } from 'node:http';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { crc32 } from 'node:zlib';
 
-const args = Object.fromEntries(
-  process.argv.slice(2).reduce((pairs, arg, i, all) => (arg.startsWith('--') ? [...pairs, [arg.slice(2), all[i + 1]]] : pairs), []),
-);
-const port = Number(args.port ?? 4569);
-const dataDir = resolve(args.data ?? '.data/s3/objects');
+const port = Number(process.env.FAKE_PORT ?? 4569);
+const dataDir = resolve(process.env.FAKE_S3_DIR ?? '.data/s3/objects');
 const accessKeyId = process.env.S3_FAKE_ACCESS_KEY_ID;
 const secretAccessKey = process.env.S3_FAKE_SECRET_ACCESS_KEY;
 if (!accessKeyId || !secretAccessKey) {
