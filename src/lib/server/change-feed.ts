@@ -18,8 +18,12 @@ import { getDb, type Executor, type Transaction } from '../../db/client';
 // A hash collision between two organisations only makes them wait for each other.
 const CHANGE_FEED_LOCK_CLASS = 731_001;
 
-/** Joins the organisation's writers for the rest of the transaction; call before the first write. */
-export async function lockChangeFeed(tx: Transaction, organisationId: string): Promise<void> {
+/**
+ * Joins the organisation's writers for the rest of the transaction; call before the first write.
+ * `tx` must be inside a transaction (a drizzle transaction, or a client after `begin`): on the
+ * pool the lock would end with the statement.
+ */
+export async function lockChangeFeed(tx: Executor, organisationId: string): Promise<void> {
   await tx.execute(sql`select pg_advisory_xact_lock_shared(${CHANGE_FEED_LOCK_CLASS}, hashtext(${organisationId}))`);
 }
 
