@@ -11,7 +11,7 @@ import { isLater, unchanged, type ConflictDraft, type ConflictSide, type Incomin
 export function mergeFinding(standing: StandingFinding | null, incoming: Incoming<'finding'>): Merged<StandingFinding> {
   const { op } = incoming;
   const p = op.payload;
-  const event: SeverityEvent = { stamp: incoming.stamp, severity: p.severity, opId: op.opId };
+  const event: SeverityEvent = { stamp: incoming.stamp, severity: p.severity, opId: op.opId, author: incoming.author };
   const isReset = p.downgrade && incoming.mayDowngrade;
   const reason = p.downgrade && !incoming.mayDowngrade ? 'only the office can lower a severity' : undefined;
 
@@ -26,7 +26,7 @@ export function mergeFinding(standing: StandingFinding | null, incoming: Incomin
   const conflicts: ConflictDraft[] = change.droppedUnseen.map((dropped) => ({
     kind: 'finding',
     entityId: p.findingId,
-    proposed: { value: { severity: dropped.severity }, stamp: dropped.stamp, opId: dropped.opId, author: null },
+    proposed: { value: { severity: dropped.severity }, stamp: dropped.stamp, opId: dropped.opId, author: dropped.author ?? null },
     standing: side,
   }));
 
@@ -69,9 +69,11 @@ function findingSide(incoming: Incoming<'finding'>): ConflictSide {
   return { value: { title, detail, severity }, stamp: incoming.stamp, opId: incoming.op.opId, author: incoming.author };
 }
 
+/** The finding as it stands, attributed to whoever set its severity. */
 function standingSide(f: StandingFinding): ConflictSide {
   const value: { title: string; detail: string; severity: Severity } = { title: f.title, detail: f.detail, severity: f.severity };
-  return { value, stamp: f.severityStamp, opId: null, author: f.author };
+  const setBy = severityOf(f.severityLog);
+  return { value, stamp: f.severityStamp, opId: setBy.opId, author: setBy.author ?? f.author };
 }
 
 function withReason<S>(merged: Merged<S>, reason: string | undefined): Merged<S> {

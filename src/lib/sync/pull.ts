@@ -113,7 +113,7 @@ export const pulledReadingResult = z.object({
   unit: z.string().nullable(),
   stamp,
 });
-const severityEvent = z.object({ stamp, severity: z.enum(SEVERITIES), opId: z.string().nullable() });
+const severityEvent = z.object({ stamp, severity: z.enum(SEVERITIES), opId: z.string().nullable(), author: z.string().nullable().optional() });
 /** What the device needs to merge its own pending severity changes the way the server will (severity-log.ts). */
 export const pulledSeverityLog = z.object({
   reset: severityEvent.extend({ seenStamp: stamp.nullable() }).nullable(),

@@ -14,7 +14,8 @@
 import { compareStamps, type Stamp } from './clock';
 import { SEVERITY_RANK, type Severity } from './operations';
 
-export type SeverityEvent = { stamp: Stamp; severity: Severity; opId: string | null };
+/** `author`: who set it, where known (older logs and pulled copies may not say). */
+export type SeverityEvent = { stamp: Stamp; severity: Severity; opId: string | null; author?: string | null };
 /** A reset remembers what it had seen, to tell a deliberate downgrade from an unseen raise. */
 export type SeverityReset = SeverityEvent & { seenStamp: Stamp | null };
 export type SeverityLog = { reset: SeverityReset | null; raises: SeverityEvent[] };
@@ -66,8 +67,8 @@ function paretoInsert(events: SeverityEvent[], event: SeverityEvent): SeverityEv
   return [...survivors, event].sort((a, b) => compareStamps(a.stamp, b.stamp));
 }
 
-/** The severity the log stands for, and the stamp of the event that set it. */
-export function severityOf(log: SeverityLog): { severity: Severity; stamp: Stamp } {
+/** The severity the log stands for, and the event that set it. */
+export function severityOf(log: SeverityLog): SeverityEvent {
   const candidates: SeverityEvent[] = log.reset ? [log.reset, ...log.raises] : log.raises;
   if (candidates.length === 0) throw new Error('a severity log needs at least one event');
   let best = candidates[0]!;
@@ -75,5 +76,5 @@ export function severityOf(log: SeverityLog): { severity: Severity; stamp: Stamp
     const byRank = rank(e.severity) - rank(best.severity);
     if (byRank > 0 || (byRank === 0 && compareStamps(e.stamp, best.stamp) > 0)) best = e;
   }
-  return { severity: best.severity, stamp: best.stamp };
+  return best;
 }
