@@ -9,7 +9,6 @@ import type {
   StandingPartLine,
   StandingPhoto,
   StandingReading,
-  StandingSignOff,
 } from './standing';
 import type { HistoryEntry } from './history';
 import type { VisitLockState } from './merge-sign-off';

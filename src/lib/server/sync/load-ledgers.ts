@@ -120,39 +120,15 @@ export async function loadLedgers(db: Executor, visits: VisitRow[], operations: 
   }
   for (const n of notes) ledgerOf(n.visitId).notes.set(n.id, asStanding({ body: n.body, stamp: stamp(n.stamp), author: n.authorId }));
   for (const p of photos) {
-    ledgerOf(p.visitId).photos.set(
-      p.id,
-      asStanding({
-        findingId: p.findingId,
-        itemId: p.itemId,
-        caption: p.caption,
-        sha256: p.sha256,
-        contentType: p.contentType,
-        sizeBytes: p.sizeBytes,
-        width: p.width,
-        height: p.height,
-        addStamp: stamp(p.addStamp),
-        removedStamp: p.removedStamp ? stamp(p.removedStamp) : null,
-        author: p.createdBy,
-      }),
+    const { id, visitId, objectKey: _o, thumbnailKey: _t, addStamp, removedStamp, createdBy, createdAt: _c, changeSeq: _s, ...photo } = p;
+    ledgerOf(visitId).photos.set(
+      id,
+      asStanding({ ...photo, addStamp: stamp(addStamp), removedStamp: removedStamp ? stamp(removedStamp) : null, author: createdBy }),
     );
   }
   for (const l of lines) {
-    ledgerOf(l.visitId).partLines.set(
-      l.id,
-      asStanding({
-        itemId: l.itemId,
-        partId: l.partId,
-        partNumber: l.partNumber,
-        description: l.description,
-        quantity: l.quantity,
-        unit: l.unit,
-        removed: l.removed,
-        stamp: stamp(l.stamp),
-        opId: null,
-        author: l.updatedBy,
-      }),
-    );
+    const { id, visitId, stamp: lineStamp, updatedBy, changeSeq: _s, ...line } = l;
+    ledgerOf(visitId).partLines.set(id, asStanding({ ...line, stamp: stamp(lineStamp), opId: null, author: updatedBy }));
   }
   for (const so of signOffs) {
     ledgerOf(so.visitId).liveSignOff = asStanding({
