@@ -80,7 +80,10 @@ export async function loadLedgers(db: Executor, visits: VisitRow[], operations: 
   const photos = owned('photo', await some(ids(['photo.add', 'photo.remove']), (list) => db.select().from(s.photos).where(inArray(s.photos.id, list))));
   const lines = owned('part_line', await some(ids(['part_line']), (list) => db.select().from(s.partLines).where(inArray(s.partLines.id, list))));
   const signOffs = await some(signed, (list) => db.select().from(s.signOffs).where(and(inArray(s.signOffs.visitId, list), isNull(s.signOffs.voidedAt))));
-  const history = await some(ids(['reading', 'photo.add', 'photo.remove']), (list) =>
+  // History answers "had anyone seen the value that lost?": a first reading cannot lose, so only
+  // readings that already stand need it; photos always do (a remove may have come before its add).
+  const needHistory = [...new Set([...readings.map((r) => r.itemId), ...ids(['photo.add', 'photo.remove'])])];
+  const history = await some(needHistory, (list) =>
       db
         .select({
           opId: s.syncOperations.opId,
