@@ -241,6 +241,17 @@ async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: n
 // ---- pull -----------------------------------------------------------------------------------
 
 async function pullAll(deps: SyncDeps): Promise<number> {
+  try {
+    return await pullPages(deps);
+  } catch (error) {
+    // 409: the cursor belongs to data this server no longer has (restored from a backup, say).
+    if (!(error instanceof ServerError) || error.status !== 409) throw error;
+    await startPullOver(deps.db);
+    return pullPages(deps);
+  }
+}
+
+async function pullPages(deps: SyncDeps): Promise<number> {
   const { db } = deps;
   const row = await db.meta.get('cursor');
   let cursor = row?.key === 'cursor' ? row.value : null;
@@ -256,11 +267,28 @@ async function pullAll(deps: SyncDeps): Promise<number> {
     pages += 1;
     if (whole) gathered = gathered ? joinPages(gathered, page) : page;
     else await storePulledPage(db, page);
+    // Later local changes must order after everything the pull brought (lib/sync/README.md).
+    const latest = latestStamp(page);
+    if (latest) await receiveServerStamp(db, latest);
     cursor = page.cursor;
     if (!page.hasMore) break;
   }
   if (gathered) await storePulledPage(db, gathered, { replace: true });
   return pages;
+}
+
+/** The latest clock stamp a pulled page carries, if any. */
+export function latestStamp(page: PullResponse): string | null {
+  const stamps = [
+    ...page.checkResults.map((r) => r.stamp),
+    ...page.readingResults.map((r) => r.stamp),
+    ...page.findings.flatMap((r) => [r.stamp, r.severityStamp]),
+    ...page.notes.map((r) => r.stamp),
+    ...page.photos.map((r) => r.addStamp),
+    ...page.partLines.map((r) => r.stamp),
+    ...page.signOffs.map((r) => r.stamp),
+  ];
+  return stamps.reduce<string | null>((max, stamp) => (max === null || stamp > max ? stamp : max), null);
 }
 
 function joinPages(a: PullResponse, b: PullResponse): PullResponse {

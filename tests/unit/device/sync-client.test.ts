@@ -167,3 +167,37 @@ describe('an operation the server overrules', () => {
     expect(await db.meta.get('cursor')).toEqual({ key: 'cursor', value: '30' });
   });
 });
+
+describe('pulling', () => {
+  it('moves the clock past the latest stamp a pull brings', async () => {
+    const { fetchImpl } = fakeServer();
+    const ahead = encodeStamp({ wallMs: Date.now() + 3_600_000, counter: 2, deviceId: 'tablet' });
+    const withStamp = (async (input: string | URL | Request, init?: RequestInit) => {
+      const url = new URL(String(input), 'http://phone.test');
+      if (url.pathname === '/api/sync/pull') {
+        return Response.json({ ...emptyPage('11'), checkResults: [{ visitId: ids.visit, itemId: ids.check, state: 'done', stamp: ahead }] });
+      }
+      return fetchImpl(input, init);
+    }) as typeof fetch;
+    await syncOnce({ db, fetch: withStamp });
+    const next = await setCheck(db, ids.visit, ids.check, 'not_yet');
+    expect(next.stamp > ahead).toBe(true);
+    expect(next.seenStamp).toBe(ahead);
+  });
+
+  it('starts again from cursor 0 when the server says the cursor is not its own (409)', async () => {
+    const cursors: string[] = [];
+    const restored = (async (input: string | URL | Request) => {
+      const url = new URL(String(input), 'http://phone.test');
+      const cursor = url.searchParams.get('cursor')!;
+      cursors.push(cursor);
+      if (cursor !== '0') return Response.json({ error: 'The cursor is ahead of this server.' }, { status: 409 });
+      return Response.json({ ...roundPage().page, cursor: '3', visits: [] });
+    }) as typeof fetch;
+    await syncOnce({ db, fetch: restored });
+    expect(cursors).toEqual(['10', '0']);
+    expect(await db.meta.get('cursor')).toEqual({ key: 'cursor', value: '3' });
+    // The whole view held no visit for this technician: the phone's round is gone too.
+    expect(await db.visits.count()).toBe(0);
+  });
+});
