@@ -118,6 +118,8 @@ test('the technician’s screens hold up on a phone', async ({ context, page }) 
   for (let i = 1; i <= 14; i += 1) await page.mouse.move(box.x + 30 + i * 20, box.y + 120 - 50 * Math.sin(i / 2));
   await page.mouse.up();
   await page.getByRole('checkbox').check();
+  await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
+  await expect(page.getByRole('button', { name: 'Sign off and lock the visit' })).toBeEnabled();
   await check(page, 'sign-off');
 
   await page.goto('/device');

@@ -84,8 +84,9 @@ export async function createRound(org: OrganisationFixture, options: { checklist
     }
   }
 
-  // Today in the business's time zone (the organisation default, Europe/London).
+  // Today in the business's time zone (the organisation default, Europe/London), 09:00 to 10:30.
   const now = new TZDate(Date.now(), 'Europe/London');
+  const slotStart = new Date(new TZDate(now.getFullYear(), now.getMonth(), now.getDate(), 9, 0, 'Europe/London').getTime());
   const visitId = randomUUID();
   await db.insert(s.visits).values({
     id: visitId,
@@ -96,8 +97,8 @@ export async function createRound(org: OrganisationFixture, options: { checklist
     templateVersionId: versionId,
     roundDate: format(now, 'yyyy-MM-dd'),
     roundPosition: 0,
-    slotStart: new Date(Date.now() - 30 * 60_000),
-    slotEnd: new Date(Date.now() + 90 * 60_000),
+    slotStart,
+    slotEnd: new Date(slotStart.getTime() + 90 * 60_000),
     addressLines: '3 Osier Walk, Testbury',
     postcode: 'QX9 1TT',
     accessNotes: 'Car on the drive; keys with the neighbour at number 5.',
