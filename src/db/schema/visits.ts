@@ -9,15 +9,9 @@ import { vehicles } from './vehicles';
 import { templateVersions } from './templates';
 import { changeSeqColumn } from './change-feed';
 
-export const VISIT_STATUSES = [
-  'booked',
-  'in_progress',
-  'signed_off',
-  'reviewed',
-  'invoiced',
-  'paid',
-  'cancelled',
-] as const;
+import { VISIT_STATUSES } from '../../lib/words';
+
+export { VISIT_STATUSES };
 export type VisitStatus = (typeof VISIT_STATUSES)[number];
 
 export const visits = pgTable(

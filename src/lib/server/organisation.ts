@@ -1,0 +1,11 @@
+// The business's own settings as the server services need them.
+import { eq } from 'drizzle-orm';
+import { getDb, type Executor } from '../../db/client';
+import * as s from '../../db/schema';
+import { HttpError } from './http';
+
+export async function getOrganisation(organisationId: string, db: Executor = getDb()) {
+  const [org] = await db.select().from(s.organisations).where(eq(s.organisations.id, organisationId));
+  if (!org) throw new HttpError(404, 'Your business is not on file any more. Sign in again.');
+  return org;
+}
