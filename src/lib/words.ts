@@ -36,3 +36,7 @@ export const VISIT_STATUSES = [
   'paid',
   'cancelled',
 ] as const;
+
+export type UserRole = (typeof USER_ROLES)[number];
+export type VisitStatus = (typeof VISIT_STATUSES)[number];
+export type DistanceUnit = (typeof DISTANCE_UNITS)[number];

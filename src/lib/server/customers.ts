@@ -19,8 +19,10 @@ export type CustomerRow = {
   lastVisit: string | null;
 };
 
-const vehicleCount = sql<number>`(select count(*)::int from ${s.vehicles} where ${s.vehicles.customerId} = ${s.customers.id})`;
-const lastVisit = sql<string | null>`(select max(${s.visits.roundDate})::text from ${s.visits} where ${s.visits.customerId} = ${s.customers.id} and ${s.visits.status} <> 'cancelled')`;
+// Written with explicit aliases: in a single-table select Drizzle leaves column names
+// unqualified, and inside the subquery "id" would mean the vehicle's id, not the customer's.
+const vehicleCount = sql<number>`(select count(*)::int from ${s.vehicles} v where v.customer_id = ${s.customers}.id)`;
+const lastVisit = sql<string | null>`(select max(vi.round_date)::text from ${s.visits} vi where vi.customer_id = ${s.customers}.id and vi.status <> 'cancelled')`;
 
 export async function listCustomers(
   organisationId: string,
