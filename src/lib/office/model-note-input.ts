@@ -12,11 +12,3 @@ export const modelNoteInput = z.object({
 
 export type ModelNoteInput = z.output<typeof modelNoteInput>;
 
-/** Whether a note applies to a vehicle: same make and model (ignoring case), and engine unless blank. */
-export function noteMatches(
-  note: { make: string; model: string; engine: string },
-  vehicle: { make: string; model: string; engine: string },
-): boolean {
-  const same = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
-  return same(note.make, vehicle.make) && same(note.model, vehicle.model) && (note.engine.trim() === '' || same(note.engine, vehicle.engine));
-}

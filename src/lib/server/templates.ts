@@ -8,6 +8,7 @@ import * as s from '../../db/schema';
 import type {
   NewTemplateInput,
   TemplateContentInput,
+  TemplateDetails,
   TemplateDetailsInput,
   TemplateItemInput,
 } from '../office/template-input';
@@ -25,7 +26,7 @@ const NAME_TAKEN = 'A checklist with that name already exists. Choose another na
 export async function insertTemplate(
   tx: Executor,
   organisationId: string,
-  details: TemplateDetailsInput,
+  details: TemplateDetails,
   ids: { templateId?: string; versionId?: string } = {},
 ) {
   try {
@@ -83,8 +84,13 @@ export async function publishVersion(
   at: Date = new Date(),
 ) {
   const draft = await requireDraft(tx, organisationId, versionId);
-  const [items] = await tx.select({ n: count() }).from(s.templateItems).where(eq(s.templateItems.versionId, versionId));
-  if (!items?.n) throw new HttpError(422, 'An empty checklist cannot be published: add a section with at least one item.');
+  const sections = await tx
+    .select({ title: s.templateSections.title, items: sql<number>`(select count(*)::int from ${s.templateItems} i where i.section_id = ${s.templateSections}.id)` })
+    .from(s.templateSections)
+    .where(eq(s.templateSections.versionId, versionId));
+  if (sections.length === 0) throw new HttpError(422, 'An empty checklist cannot be published: add a section with at least one item.');
+  const empty = sections.find((section) => section.items === 0);
+  if (empty) throw new HttpError(422, `The section “${empty.title}” has no items: add one or remove the section before publishing.`);
   await tx
     .update(s.templateVersions)
     .set({ status: 'retired', changeSeq: s.nextChangeSeq })
@@ -201,9 +207,9 @@ export async function getVersionContent(organisationId: string, versionId: strin
 }
 
 export async function createTemplate(organisationId: string, input: NewTemplateInput) {
-  const { sections, ...details } = input;
+  const { sections, name, description, labourHours } = input;
   return writeSynced(organisationId, async (tx) => {
-    const { template, version } = await insertTemplate(tx, organisationId, details);
+    const { template, version } = await insertTemplate(tx, organisationId, { name, description, labourCentiHours: labourHours });
     await writeDraftContent(tx, organisationId, version.id, { sections });
     return { templateId: template.id, draftVersionId: version.id };
   });
@@ -213,7 +219,7 @@ export async function updateTemplateDetails(organisationId: string, templateId: 
   try {
     const [row] = await getDb()
       .update(s.checklistTemplates)
-      .set({ ...details, updatedAt: new Date() })
+      .set({ name: details.name, description: details.description, labourCentiHours: details.labourHours, updatedAt: new Date() })
       .where(and(eq(s.checklistTemplates.id, templateId), eq(s.checklistTemplates.organisationId, organisationId)))
       .returning();
     if (!row) throw new HttpError(404, 'No such checklist in this business.');

@@ -275,3 +275,15 @@ export async function markReviewed(organisationId: string, visitId: string, revi
     return row!;
   });
 }
+
+/** What a visit page needs for its title. */
+export async function visitHeading(organisationId: string, visitId: string) {
+  const [row] = await getDb()
+    .select({ id: s.visits.id, registration: s.vehicles.registration, customerName: s.customers.name })
+    .from(s.visits)
+    .innerJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
+    .innerJoin(s.customers, eq(s.customers.id, s.visits.customerId))
+    .where(and(eq(s.visits.id, visitId), eq(s.visits.organisationId, organisationId)));
+  if (!row) throw new HttpError(404, 'No such visit in this business.');
+  return row;
+}
