@@ -45,7 +45,7 @@ function Dashboard() {
                 <Tooltip />
                 <Legend />
                 {d.technicians.map((t, i) => (
-                  <Bar key={t.id} dataKey={t.id} name={t.name} stackId="visits" fill={TECHNICIAN_COLOURS[i % TECHNICIAN_COLOURS.length]} />
+                  <Bar key={t.id} dataKey={t.id} name={t.name} stackId="visits" isAnimationActive={false} fill={TECHNICIAN_COLOURS[i % TECHNICIAN_COLOURS.length]} />
                 ))}
               </BarChart>
             </ResponsiveContainer>
@@ -60,7 +60,7 @@ function Dashboard() {
                 <XAxis dataKey="severity" tickFormatter={(s: Severity) => SEVERITY_LABEL[s]} tick={{ fontSize: 13 }} />
                 <YAxis allowDecimals={false} tick={{ fontSize: 13 }} />
                 <Tooltip labelFormatter={(s) => SEVERITY_LABEL[s as Severity]} />
-                <Bar dataKey="findings" name="Findings">
+                <Bar dataKey="findings" name="Findings" isAnimationActive={false}>
                   {d.findingsBySeverity.map((row) => (
                     <Cell key={row.severity} fill={SEVERITY_FILL[row.severity]} />
                   ))}
