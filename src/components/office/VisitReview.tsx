@@ -138,7 +138,11 @@ function VisitReview({ visitId, timeZone }: { visitId: string; timeZone: string 
                       <td className="py-1.5">
                         {item.reading?.judgement && (
                           <span className="flex flex-wrap items-center gap-2">
-                            <SeverityBadge severity={item.reading.judgement.severity} size={16} />
+                            {item.reading.judgement.severity ? (
+                              <SeverityBadge severity={item.reading.judgement.severity} size={16} />
+                            ) : (
+                              <strong className="text-sm">Not judged</strong>
+                            )}
                             <span className="text-sm">{item.reading.judgement.message}</span>
                           </span>
                         )}

@@ -12,7 +12,7 @@ import { island } from './query-client';
 import { tableStateFrom, useServerTable } from './server-table';
 
 type Row = Json<VisitRow>;
-const FILTERS = ['from', 'to', 'technicianId', 'status', 'attention', 'conflicts'] as const;
+const FILTERS = ['from', 'to', 'technicianId', 'status', 'attention', 'conflicts', 'customerId', 'vehicleId'] as const;
 
 function columnsFor(timeZone: string): ColumnDef<Row, unknown>[] {
   return [
@@ -110,6 +110,18 @@ function VisitsTable({ search, timeZone }: { search: string; timeZone: string })
           />
           {flag('attention', 'Findings at soon or now')}
           {flag('conflicts', 'Open conflicts')}
+          {(filters.vehicleId || filters.customerId) && (
+            <button
+              type="button"
+              onClick={() => {
+                table.setFilter('vehicleId', '');
+                table.setFilter('customerId', '');
+              }}
+              className="min-h-10 rounded border-2 border-brand bg-white px-3 font-bold text-brand"
+            >
+              Showing one {filters.vehicleId ? 'vehicle' : 'customer'}’s visits · show all
+            </button>
+          )}
         </>
       }
     />

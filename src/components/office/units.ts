@@ -1,15 +1,8 @@
-// How a UCUM code reads on screen.
-const LABELS: Record<string, string> = {
-  'N.m': 'N·m',
-  Cel: '°C',
-  '[degF]': '°F',
-  '[mi_i]': 'mi',
-  '[psi]': 'psi',
-  '{each}': '',
-  '{grade}': '',
-};
+// How a UCUM code reads on screen: the trade module's label, or nothing for annotations such as
+// {each} and {grade}, which are counts and text rather than units.
+import { isKnownUnit, unit } from '../../lib/trade';
 
 export function unitLabel(code: string | null | undefined): string {
-  if (!code) return '';
-  return LABELS[code] ?? code;
+  if (!code || code.startsWith('{')) return '';
+  return isKnownUnit(code) ? unit(code).label : code;
 }

@@ -1,5 +1,5 @@
 // Amounts of money as the owner types them ("62.50") and as we keep them (6250 minor units).
-import { minorDigits } from './currency-digits';
+import { minorDigits } from '../trade';
 
 /** Minor units from a decimal typed in major units; null when it is not a plain amount. */
 export function parseMajorAmount(text: string, currency: string): number | null {

@@ -1,29 +1,28 @@
-// How a recorded reading looks to the office: within the checklist's expected range or not.
-// The trade rules (lib/trade) judge it further where the item names one.
-import type { Severity } from '../sync/operations';
+// How a recorded reading looks to the office: the same trade judgement the phone's number pad
+// gives (lib/trade judgeReading), with the checklist item's range and the vehicle's spec.
+import { judgeReading, type ReadingContext, type Severity } from '../trade';
 
 export type ReadingItem = { unit: string | null; expectedMin: number | null; expectedMax: number | null; rule: string | null };
 export type RecordedReading = { value: number | null; textValue: string | null; unit: string | null };
-export type VehicleFacts = { oilGrade: string | null };
-export type Judgement = { severity: Severity; message: string };
+export type Judgement = { severity: Severity | null; verdict: string; message: string; source: string | null };
 
-export function judgeRecordedReading(item: ReadingItem, reading: RecordedReading, vehicle: VehicleFacts): Judgement | null {
-  if (reading.value === null) {
-    if (item.rule === 'oil_grade' && vehicle.oilGrade && reading.textValue) {
-      return reading.textValue.toUpperCase() === vehicle.oilGrade.toUpperCase()
-        ? { severity: 'ok', message: `Matches the vehicle’s spec (${vehicle.oilGrade}).` }
-        : { severity: 'watch', message: `The vehicle’s spec says ${vehicle.oilGrade}.` };
-    }
-    return null;
-  }
-  const unit = reading.unit ?? item.unit ?? '';
-  const range = `${item.expectedMin ?? '…'}–${item.expectedMax ?? '…'} ${unit}`.trim();
-  if (item.expectedMin !== null && reading.value < item.expectedMin) {
-    return { severity: 'soon', message: `Below the expected range (${range}).` };
-  }
-  if (item.expectedMax !== null && reading.value > item.expectedMax) {
-    return { severity: 'soon', message: `Above the expected range (${range}).` };
-  }
-  if (item.expectedMin === null && item.expectedMax === null) return null;
-  return { severity: 'ok', message: `Within the expected range (${range}).` };
+const VERDICT_WORDS: Record<string, string> = {
+  ok: 'Fine.',
+  attention: 'Needs attention.',
+  out_of_range: 'Outside the expected range.',
+  invalid: 'Could not be judged.',
+};
+
+export function judgeRecordedReading(item: ReadingItem, reading: RecordedReading, vehicle: ReadingContext['vehicle']): Judgement {
+  const value = reading.value ?? reading.textValue ?? '';
+  const judged = judgeReading(
+    { value },
+    { rule: item.rule, unit: reading.unit ?? item.unit ?? '', expectedMin: item.expectedMin, expectedMax: item.expectedMax, vehicle },
+  );
+  return {
+    severity: judged.suggestedSeverity,
+    verdict: judged.verdict,
+    message: judged.messages.length ? judged.messages.join(' ') : VERDICT_WORDS[judged.verdict] ?? judged.verdict,
+    source: judged.source,
+  };
 }

@@ -2,6 +2,7 @@
 // freezes it. The rules here are the ones a technician relies on at the kerb: a reading has a
 // unit, a range runs low to high, a part names what it fits.
 import { z } from 'zod';
+import type { ReadingRule } from '../trade';
 import { ITEM_KINDS, PART_KINDS, PART_UNITS } from '../words';
 import { optionalNumber, optionalText } from './form-values';
 
@@ -23,7 +24,7 @@ export const READING_RULES = [
   { rule: 'tread_depth', label: 'Tyre tread depth, against the legal minimum' },
   { rule: 'tyre_pressure', label: 'Tyre pressure, against the spec' },
   { rule: 'brake_pad', label: 'Brake pad thickness' },
-] as const;
+] as const satisfies readonly { rule: ReadingRule; label: string }[];
 const RULE_NAMES: readonly string[] = READING_RULES.map((r) => r.rule);
 
 export const templateItemInput = z

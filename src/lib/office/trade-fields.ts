@@ -1,33 +1,42 @@
 // Form fields whose rules belong to the trade: each calls lib/trade and turns its verdict into
 // a zod issue the form shows beside the field.
 import { z } from 'zod';
-import { normaliseRegistration } from '../trade/registration';
+import { checkVin, normaliseRegistration, parseOilGrade } from '../trade';
 
-export const registrationField = z.string().transform((text, ctx) => {
-  try {
-    return normaliseRegistration(text);
-  } catch (error) {
-    ctx.addIssue({ code: 'custom', message: (error as Error).message });
-    return z.NEVER;
-  }
-});
+const fromTrade = <T>(parse: (text: string) => T) =>
+  z.string().transform((text, ctx) => {
+    try {
+      return parse(text);
+    } catch (error) {
+      ctx.addIssue({ code: 'custom', message: (error as Error).message });
+      return z.NEVER;
+    }
+  });
 
-// Until lib/trade's VIN check lands, only the ISO 3779 shape the database enforces.
+export const registrationField = fromTrade(normaliseRegistration);
+
+/** Empty is "not known"; otherwise ISO 3779 shape and, for North-American VINs, the check digit. */
 export const vinField = z
   .union([z.string(), z.null()])
   .transform((text, ctx) => {
-    const vin = (text ?? '').replace(/\s+/g, '').toUpperCase();
-    if (vin === '') return null;
-    if (!/^[A-HJ-NPR-Z0-9]{17}$/.test(vin)) {
-      ctx.addIssue({ code: 'custom', message: 'a VIN has 17 letters and digits, without I, O or Q' });
+    if (text === null || text.trim() === '') return null;
+    const check = checkVin(text);
+    if (!check.valid) {
+      ctx.addIssue({ code: 'custom', message: check.problems.join(' ') });
       return z.NEVER;
     }
-    return vin;
+    return check.vin;
   });
 
+/** Empty is "not known"; otherwise an SAE J300 grade, stored in its normal form (5W-30). */
 export const oilGradeField = z
   .union([z.string(), z.null()])
-  .transform((text) => {
-    const grade = (text ?? '').trim().toUpperCase();
-    return grade === '' ? null : grade;
+  .transform((text, ctx) => {
+    if (text === null || text.trim() === '') return null;
+    try {
+      return parseOilGrade(text).grade;
+    } catch (error) {
+      ctx.addIssue({ code: 'custom', message: (error as Error).message });
+      return z.NEVER;
+    }
   });

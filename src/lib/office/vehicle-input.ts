@@ -42,7 +42,11 @@ export const vehicleInput = z.object({
     .transform((value) => (value === '' ? null : value)),
   tyrePressureFrontKpa: optionalNumber({ min: 50, max: 1200 }),
   tyrePressureRearKpa: optionalNumber({ min: 50, max: 1200 }),
-  specialTools: z.array(z.string().trim().min(1).max(120)).max(20, 'at most 20 special tools'),
+  // One tool a line in the form; a list in the database.
+  specialTools: z
+    .union([z.string().transform((text) => text.split('\n')), z.array(z.string())])
+    .transform((tools) => tools.map((t) => t.trim()).filter((t) => t !== ''))
+    .pipe(z.array(z.string().max(120, 'a tool is at most 120 characters')).max(20, 'at most 20 special tools')),
   serviceIntervalMonths: optionalNumber({ min: 1, max: 120, integer: true }),
   serviceIntervalDistance: optionalNumber({ min: 100, max: 200_000, integer: true }),
   lastServiceDate: z
