@@ -24,12 +24,16 @@ export function withQuery(path: string, query: Query = {}): string {
 }
 
 export async function api<T>(path: string, options: { method?: string; body?: unknown; query?: Query } = {}): Promise<T> {
+  const method = options.method ?? (options.body === undefined ? 'GET' : 'POST');
+  // Every write carries a JSON body, even a DELETE: Astro's origin check refuses a write without
+  // a content type unless its Origin matches the address Astro rebuilt, which a proxy can change.
+  const body = method === 'GET' ? undefined : JSON.stringify(options.body ?? {});
   let response: Response;
   try {
     response = await fetch(withQuery(path, options.query), {
-      method: options.method ?? (options.body === undefined ? 'GET' : 'POST'),
-      headers: options.body === undefined ? { accept: 'application/json' } : { 'content-type': 'application/json', accept: 'application/json' },
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      method,
+      headers: body === undefined ? { accept: 'application/json' } : { 'content-type': 'application/json', accept: 'application/json' },
+      body,
       credentials: 'same-origin',
     });
   } catch {
@@ -40,18 +44,18 @@ export async function api<T>(path: string, options: { method?: string; body?: un
     throw new ApiError(401, 'Your session has ended. Sign in again.');
   }
   const text = await response.text();
-  let body: unknown = null;
+  let answer: unknown = null;
   try {
-    body = text ? JSON.parse(text) : null;
+    answer = text ? JSON.parse(text) : null;
   } catch {
     // A proxy's HTML error page: fall through to the generic message below.
   }
   if (!response.ok) {
-    const error = body as { error?: string; details?: unknown } | null;
+    const error = answer as { error?: string; details?: unknown } | null;
     const details = Array.isArray(error?.details) ? error.details.filter((d): d is string => typeof d === 'string') : [];
     throw new ApiError(response.status, error?.error ?? `The server answered ${response.status}. Try again.`, details);
   }
-  return body as T;
+  return answer as T;
 }
 
 /** The shape a server value has after JSON: dates become ISO strings. */

@@ -83,7 +83,7 @@ describe('customers', () => {
 
   it('answers malformed JSON with 400 and a non-JSON body with 415', async () => {
     expect((await callJson(office, '/api/office/customers', { body: '{"name":' })).status).toBe(400);
-    const wrongType = await callJson(office, '/api/office/customers', { body: 'name=x', headers: { 'content-type': 'text/plain' } });
+    const wrongType = await callJson(office, '/api/office/customers', { body: '<name>x</name>', headers: { 'content-type': 'application/xml' } });
     expect(wrongType.status).toBe(415);
   });
 

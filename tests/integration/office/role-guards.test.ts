@@ -62,9 +62,9 @@ describe('office routes', () => {
     const before = await rowsOfOrganisation();
     const refused: string[] = [];
     for (const { method, path } of routes) {
-      const response = await callJson(sessions.technician!, path, { method, body: method === 'GET' || method === 'DELETE' ? undefined : body });
+      const response = await callJson(sessions.technician!, path, { method, body: method === 'GET' ? undefined : body });
       if (response.status !== 403) refused.push(`${method} ${path}: ${response.status}`);
-      else expect(response.json.error).toMatch(/office|owner/);
+      else if (!/office|owner/.test(String(response.json.error))) refused.push(`${method} ${path}: 403 without saying why`);
     }
     expect(refused).toEqual([]);
     expect(await rowsOfOrganisation()).toEqual(before);
@@ -73,7 +73,7 @@ describe('office routes', () => {
   it('answer an anonymous caller with 401', async () => {
     const admitted: string[] = [];
     for (const { method, path } of routes) {
-      const response = await callJson(null, path, { method, body: method === 'GET' || method === 'DELETE' ? undefined : body });
+      const response = await callJson(null, path, { method, body: method === 'GET' ? undefined : body });
       if (response.status !== 401) admitted.push(`${method} ${path}: ${response.status}`);
     }
     expect(admitted).toEqual([]);

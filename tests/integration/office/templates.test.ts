@@ -162,7 +162,7 @@ describe('checklist templates', () => {
 
   it('discards a draft but never a published version', async () => {
     const draft = await callJson(office, `/api/office/templates/${templateId}/draft`, { body: {} });
-    expect((await callJson(office, `/api/office/template-versions/${draft.json.versionId}`, { method: 'DELETE' })).status).toBe(200);
-    expect((await callJson(office, `/api/office/template-versions/${v1}`, { method: 'DELETE' })).status).toBe(409);
+    expect((await callJson(office, `/api/office/template-versions/${draft.json.versionId}`, { method: 'DELETE', body: {} })).status).toBe(200);
+    expect((await callJson(office, `/api/office/template-versions/${v1}`, { method: 'DELETE', body: {} })).status).toBe(409);
   });
 });
