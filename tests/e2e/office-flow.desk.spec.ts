@@ -13,7 +13,7 @@ import { testDb, testPool } from '../support/database';
 import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../support/fixtures';
 import { publishedChecklist, syncedSignedOffVisit } from '../support/office-fixtures';
 
-const root = join(__dirname, '..', '..');
+const root = process.env.TICKOVER_ROOT ?? process.cwd();
 const syncRoute = (name: string) => existsSync(join(root, 'src', 'pages', 'api', 'sync', `${name}.ts`));
 
 // A Tuesday in March 2031: before summer time, so London time is UTC, and far from today.
@@ -73,7 +73,7 @@ test('adds a customer, then a vehicle: a bad VIN is refused with a reason, a goo
   await page.getByLabel('Registration').fill(registration.toLowerCase());
   // 49 CFR 565.15: the weighted sum of 1M8GDM9A?KP042789 is 353, and 353 mod 11 = 1, so X is wrong
   // (TRADE-REFERENCES §8.1).
-  await page.getByLabel('VIN (optional)').fill('1M8GDM9AXKP042789');
+  await page.getByLabel('VIN', { exact: true }).fill('1M8GDM9AXKP042789');
   await page.getByLabel('Make', { exact: true }).fill('Corvane');
   await page.getByLabel('Model', { exact: true }).fill('Pippet');
   await page.getByLabel('Oil grade (SAE J300)').fill('0w20');
@@ -82,7 +82,7 @@ test('adds a customer, then a vehicle: a bad VIN is refused with a reason, a goo
   await expect(page).toHaveURL(/\/office\/vehicles\/new/);
 
   // The regulation's own worked example (Table V): check digit 4.
-  await page.getByLabel('VIN (optional)').fill('1G4AH59H45G118341');
+  await page.getByLabel('VIN', { exact: true }).fill('1G4AH59H45G118341');
   await expect(page.getByText('VIN looks right')).toBeVisible();
   await page.getByRole('button', { name: 'Add vehicle' }).click();
   await expect(page.getByRole('heading', { name: `${registration}: Corvane Pippet` })).toBeVisible();
@@ -94,12 +94,12 @@ test('books a visit for a technician on the rounds planner', async ({ page }) =>
   await page.goto(`/office/rounds?week=${DAY}`);
   await page.getByRole('button', { name: 'Book a visit for Tara Tech on Tue 4 Mar' }).click();
   const dialog = page.getByRole('dialog', { name: 'Book a visit' });
-  await dialog.getByLabel('Customer').fill('Ada');
+  await dialog.getByLabel('Customer', { exact: true }).fill('Ada');
   await dialog.getByRole('button', { name: /Ada Testwell/ }).click();
-  await expect(dialog.getByLabel('Vehicle')).toHaveValue(/.+/);
-  await dialog.getByLabel('Checklist').selectOption({ label: 'Test service (v1)' });
-  await dialog.getByLabel('From').fill('09:00');
-  await expect(dialog.getByLabel('To')).toHaveValue('10:30');
+  await expect(dialog.getByLabel('Vehicle', { exact: true })).toHaveValue(/.+/);
+  await dialog.getByLabel('Checklist', { exact: true }).selectOption({ label: 'Test service (v1)' });
+  await dialog.getByLabel('From', { exact: true }).fill('09:00');
+  await expect(dialog.getByLabel('To', { exact: true })).toHaveValue('10:30');
   await expect(dialog.getByLabel('Where the vehicle stands')).toHaveValue('1 Test Lane, Aldersby');
   await dialog.getByRole('button', { name: 'Book visit' }).click();
   await expect(page.getByRole('status')).toContainText('Visit booked.');

@@ -144,13 +144,13 @@ function VehicleFormFields({
           <TextField
             form={form}
             name="vin"
-            label="VIN (optional)"
+            label="VIN"
             hint={
               vinCheck
                 ? vinCheck.valid
                   ? [`VIN looks right (${vinCheck.wmi} · ${vinCheck.vds} · ${vinCheck.vis}).`, ...vinCheck.notes].join(' ')
                   : null
-                : '17 characters, on the windscreen corner or the door pillar.'
+                : 'Optional: 17 characters, on the windscreen corner or the door pillar.'
             }
           />
           {vinCheck && !vinCheck.valid && !form.formState.errors.vin && (
