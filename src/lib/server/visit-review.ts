@@ -1,6 +1,7 @@
 // The visits table and the review of one visit: what the technician recorded, as it synced in,
 // with the history of operations and any conflicts, and "mark reviewed".
 import { and, asc, count, desc, eq, exists, gte, ilike, inArray, isNull, lte, or, sql } from 'drizzle-orm';
+import type { PgSelect } from 'drizzle-orm/pg-core';
 import { getDb } from '../../db/client';
 import * as s from '../../db/schema';
 import type { TablePage } from '../office/table-query';
@@ -78,44 +79,57 @@ export async function listVisits(organisationId: string, query: VisitsQuery): Pr
     status: s.visits.status,
   }[query.sort];
   const { limit, offset } = pageWindow(query);
-  const [rows, [total]] = await Promise.all([
-    db
-      .select({
-        id: s.visits.id,
-        roundDate: s.visits.roundDate,
-        slotStart: s.visits.slotStart,
-        slotEnd: s.visits.slotEnd,
-        status: s.visits.status,
-        technicianId: s.visits.technicianId,
-        technicianName: s.user.name,
-        customerId: s.visits.customerId,
-        customerName: s.customers.name,
-        vehicleId: s.visits.vehicleId,
-        registration: s.vehicles.registration,
-        vehicle: sql<string>`${s.vehicles.make} || ' ' || ${s.vehicles.model}`,
-        checklist: s.checklistTemplates.name,
-        worstSeverity,
-        findingCount,
-        openConflicts,
-      })
-      .from(s.visits)
-      .innerJoin(s.customers, eq(s.customers.id, s.visits.customerId))
-      .innerJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
-      .innerJoin(s.user, eq(s.user.id, s.visits.technicianId))
-      .innerJoin(s.templateVersions, eq(s.templateVersions.id, s.visits.templateVersionId))
-      .innerJoin(s.checklistTemplates, eq(s.checklistTemplates.id, s.templateVersions.templateId))
+  // Two steps: first the page's ids (sorting and filtering touch only the joined columns), then
+  // the page's details. PostgreSQL evaluates a select list's subqueries for every row an OFFSET
+  // skips, so computing the finding and conflict counts in one query made deep pages slow.
+  // The joins serve only the search and the sorts by name; every visit has its customer, vehicle
+  // and technician, so leaving them out changes no count.
+  const needsJoins = Boolean(query.q) || query.sort !== 'slotStart' && query.sort !== 'status';
+  const joined = <T extends PgSelect>(select: T) =>
+    needsJoins
+      ? select
+          .innerJoin(s.customers, eq(s.customers.id, s.visits.customerId))
+          .innerJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
+          .innerJoin(s.user, eq(s.user.id, s.visits.technicianId))
+      : select;
+  const [page, [total]] = await Promise.all([
+    joined(db.select({ id: s.visits.id }).from(s.visits).$dynamic())
       .where(where)
       .orderBy(...orderFor(sortColumn, query.dir, s.visits.id))
       .limit(limit)
       .offset(offset),
-    db
-      .select({ n: count() })
-      .from(s.visits)
-      .innerJoin(s.customers, eq(s.customers.id, s.visits.customerId))
-      .innerJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
-      .innerJoin(s.user, eq(s.user.id, s.visits.technicianId))
-      .where(where),
+    joined(db.select({ n: count() }).from(s.visits).$dynamic()).where(where),
   ]);
+  const ids = page.map((p) => p.id);
+  const details = ids.length
+    ? await db
+        .select({
+          id: s.visits.id,
+          roundDate: s.visits.roundDate,
+          slotStart: s.visits.slotStart,
+          slotEnd: s.visits.slotEnd,
+          status: s.visits.status,
+          technicianId: s.visits.technicianId,
+          technicianName: s.user.name,
+          customerId: s.visits.customerId,
+          customerName: s.customers.name,
+          vehicleId: s.visits.vehicleId,
+          registration: s.vehicles.registration,
+          vehicle: sql<string>`${s.vehicles.make} || ' ' || ${s.vehicles.model}`,
+          checklist: s.checklistTemplates.name,
+          worstSeverity,
+          findingCount,
+          openConflicts,
+        })
+        .from(s.visits)
+        .innerJoin(s.customers, eq(s.customers.id, s.visits.customerId))
+        .innerJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
+        .innerJoin(s.user, eq(s.user.id, s.visits.technicianId))
+        .innerJoin(s.templateVersions, eq(s.templateVersions.id, s.visits.templateVersionId))
+        .innerJoin(s.checklistTemplates, eq(s.checklistTemplates.id, s.templateVersions.templateId))
+        .where(inArray(s.visits.id, ids))
+    : [];
+  const rows = ids.map((id) => details.find((d) => d.id === id)!);
   return { rows, total: total?.n ?? 0, page: query.page, pageSize: query.pageSize };
 }
 
