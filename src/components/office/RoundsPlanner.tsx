@@ -170,12 +170,23 @@ function RoundsPlanner({ initialWeek }: { initialWeek: string | null }) {
 
 function VisitCard({ visit, first, last, busy, onOpen, onMove }: { visit: PlannedVisit; first: boolean; last: boolean; busy: boolean; onOpen: () => void; onMove: (step: -1 | 1) => void }) {
   const clash = visit.clashes.length > 0;
+  const arrow = 'min-h-6 min-w-6 rounded border border-ink/30 bg-white text-[10px] disabled:opacity-30';
   return (
-    <div className={`rounded border bg-white ${clash ? 'border-2 border-sev-soon' : 'border-ink/30'} ${visit.status === 'booked' ? '' : 'bg-ink/5'}`}>
-      <button type="button" onClick={onOpen} className="block w-full px-2 pt-1 text-left hover:bg-brand/5">
-        <span className="block font-bold">
+    <div className={`rounded border ${clash ? 'border-2 border-sev-soon' : 'border-ink/30'} ${visit.status === 'booked' ? 'bg-white' : 'bg-ink/5'}`}>
+      <div className="flex items-center gap-1 px-2 pt-1">
+        <span className="font-bold whitespace-nowrap">
           {minutesToClock(visit.start)}–{minutesToClock(visit.end)}
         </span>
+        <span className="ml-auto flex gap-1">
+          <button type="button" disabled={first || busy} onClick={() => onMove(-1)} aria-label={`Move ${visit.registration} earlier in the round`} className={arrow}>
+            ▲
+          </button>
+          <button type="button" disabled={last || busy} onClick={() => onMove(1)} aria-label={`Move ${visit.registration} later in the round`} className={arrow}>
+            ▼
+          </button>
+        </span>
+      </div>
+      <button type="button" onClick={onOpen} className="block w-full px-2 pb-1 text-left hover:bg-brand/5" aria-label={`${visit.registration}, ${visit.customerName}: open`}>
         <span className="block font-mono font-bold">{visit.registration}</span>
         <span className="block truncate">{visit.customerName}</span>
         <span className="block truncate text-xs text-ink/70">
@@ -183,7 +194,7 @@ function VisitCard({ visit, first, last, busy, onOpen, onMove }: { visit: Planne
         </span>
       </button>
       {clash && (
-        <ul className="px-2 text-xs font-bold text-sev-soon">
+        <ul className="px-2 pb-1 text-xs font-bold text-sev-soon">
           {visit.clashes.map((c) => (
             <li key={c.message} className="flex items-start gap-1">
               <ClashIcon size={14} /> {c.message}
@@ -191,14 +202,6 @@ function VisitCard({ visit, first, last, busy, onOpen, onMove }: { visit: Planne
           ))}
         </ul>
       )}
-      <div className="flex justify-end gap-1 px-1 pb-1">
-        <button type="button" disabled={first || busy} onClick={() => onMove(-1)} aria-label={`Move ${visit.registration} earlier in the round`} className="min-h-7 min-w-7 rounded border border-ink/30 text-xs disabled:opacity-30">
-          ▲
-        </button>
-        <button type="button" disabled={last || busy} onClick={() => onMove(1)} aria-label={`Move ${visit.registration} later in the round`} className="min-h-7 min-w-7 rounded border border-ink/30 text-xs disabled:opacity-30">
-          ▼
-        </button>
-      </div>
     </div>
   );
 }

@@ -36,8 +36,8 @@ export function findClashes(visits: readonly PlannedVisit[], hours: WorkingHours
       for (let j = i + 1; j < sorted.length && sorted[j]!.slotStart < a.slotEnd; j += 1) {
         const b = sorted[j]!;
         const when = `${clock(b.slotStart, hours)}–${clock(a.slotEnd, hours)}`;
-        clashes.push({ kind: 'overlap', visitId: a.id, otherVisitId: b.id, message: `Overlaps another visit of the same technician (${when}).` });
-        clashes.push({ kind: 'overlap', visitId: b.id, otherVisitId: a.id, message: `Overlaps another visit of the same technician (${when}).` });
+        clashes.push({ kind: 'overlap', visitId: a.id, otherVisitId: b.id, message: `Overlaps another of this technician’s visits (${when}).` });
+        clashes.push({ kind: 'overlap', visitId: b.id, otherVisitId: a.id, message: `Overlaps another of this technician’s visits (${when}).` });
       }
     }
   }

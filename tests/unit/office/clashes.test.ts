@@ -20,8 +20,8 @@ describe('clash warnings', () => {
   it('reports an overlap on both visits, with the overlapping stretch', () => {
     const clashes = findClashes([visit('a', '2031-01-06T09:00Z', '2031-01-06T11:00Z'), visit('b', '2031-01-06T10:30Z', '2031-01-06T12:00Z')], hours);
     expect(clashes).toEqual([
-      { kind: 'overlap', visitId: 'a', otherVisitId: 'b', message: 'Overlaps another visit of the same technician (10:30–11:00).' },
-      { kind: 'overlap', visitId: 'b', otherVisitId: 'a', message: 'Overlaps another visit of the same technician (10:30–11:00).' },
+      { kind: 'overlap', visitId: 'a', otherVisitId: 'b', message: 'Overlaps another of this technician’s visits (10:30–11:00).' },
+      { kind: 'overlap', visitId: 'b', otherVisitId: 'a', message: 'Overlaps another of this technician’s visits (10:30–11:00).' },
     ]);
   });
 
