@@ -1,7 +1,7 @@
 // The week at a glance: what waits for the office, visits per week by technician, and findings
 // by severity. Money and advised work appear once billing provides them (issue 7).
 import { useQuery } from '@tanstack/react-query';
-import { Bar, BarChart, CartesianGrid, Cell, Legend, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { Bar, BarChart, CartesianGrid, Legend, Rectangle, ResponsiveContainer, Tooltip, XAxis, YAxis, type BarShapeProps } from 'recharts';
 import type { Dashboard as DashboardData } from '../../lib/server/dashboard';
 import type { Severity } from '../../lib/sync/operations';
 import { SEVERITY_LABEL, SeverityIcon } from '../ui/SeverityBadge';
@@ -60,11 +60,12 @@ function Dashboard() {
                 <XAxis dataKey="severity" tickFormatter={(s: Severity) => SEVERITY_LABEL[s]} tick={{ fontSize: 13 }} />
                 <YAxis allowDecimals={false} tick={{ fontSize: 13 }} />
                 <Tooltip labelFormatter={(s) => SEVERITY_LABEL[s as Severity]} />
-                <Bar dataKey="findings" name="Findings" isAnimationActive={false}>
-                  {d.findingsBySeverity.map((row) => (
-                    <Cell key={row.severity} fill={SEVERITY_FILL[row.severity]} />
-                  ))}
-                </Bar>
+                <Bar
+                  dataKey="findings"
+                  name="Findings"
+                  isAnimationActive={false}
+                  shape={(props: BarShapeProps) => <Rectangle {...props} fill={SEVERITY_FILL[d.findingsBySeverity[props.index]!.severity]} />}
+                />
               </BarChart>
             </ResponsiveContainer>
           </div>

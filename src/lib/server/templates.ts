@@ -2,7 +2,7 @@
 // freezes the draft as the template's current version and retires the one before, and a visit
 // keeps the version it was booked with (visits.template_version_id), so a published version
 // never changes. The demo seed builds its checklists through these same functions.
-import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import { getDb, type Executor } from '../../db/client';
 import * as s from '../../db/schema';
 import type {
