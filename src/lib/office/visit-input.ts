@@ -16,33 +16,28 @@ const slotRule = <T extends { start: number; end: number }>(value: T, ctx: z.Ref
   }
 };
 
+// Who, when and where: what booking and moving a visit share.
+const slotFields = {
+  technicianId,
+  roundDate: day,
+  start: clockTime,
+  end: clockTime,
+  addressLines: z.string().trim().min(1, 'where is the vehicle?').max(300),
+  postcode: z.string().trim().max(12).transform((v) => v.toUpperCase()),
+  accessNotes: z.string().trim().max(1000),
+};
+
 export const bookVisitInput = z
   .object({
     customerId: z.uuid('choose the customer'),
     vehicleId: z.uuid('choose the vehicle'),
-    technicianId,
     templateId: z.uuid('choose a checklist'),
-    roundDate: day,
-    start: clockTime,
-    end: clockTime,
-    addressLines: z.string().trim().min(1, 'where is the vehicle?').max(300),
-    postcode: z.string().trim().max(12).transform((v) => v.toUpperCase()),
-    accessNotes: z.string().trim().max(1000),
+    ...slotFields,
   })
   .superRefine(slotRule);
 
 /** A change to a booked visit: another technician, day or time, or where it stands. */
-export const moveVisitInput = z
-  .object({
-    technicianId,
-    roundDate: day,
-    start: clockTime,
-    end: clockTime,
-    addressLines: z.string().trim().min(1, 'where is the vehicle?').max(300),
-    postcode: z.string().trim().max(12).transform((v) => v.toUpperCase()),
-    accessNotes: z.string().trim().max(1000),
-  })
-  .superRefine(slotRule);
+export const moveVisitInput = z.object(slotFields).superRefine(slotRule);
 
 export const reorderRoundInput = z.object({
   technicianId,

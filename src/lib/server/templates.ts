@@ -55,23 +55,7 @@ export async function writeDraftContent(tx: Executor, organisationId: string, ve
       .values({ id: section.id, versionId, position, title: section.title })
       .returning({ id: s.templateSections.id });
     if (section.items.length === 0) continue;
-    await tx.insert(s.templateItems).values(
-      section.items.map((item, itemPosition) => ({
-        id: item.id,
-        versionId,
-        sectionId: row!.id,
-        position: itemPosition,
-        kind: item.kind,
-        label: item.label,
-        unit: item.unit,
-        expectedMin: item.expectedMin,
-        expectedMax: item.expectedMax,
-        rule: item.rule,
-        partKind: item.partKind,
-        caution: item.caution,
-        hint: item.hint,
-      })),
-    );
+    await tx.insert(s.templateItems).values(section.items.map((item, itemPosition) => ({ ...item, versionId, sectionId: row!.id, position: itemPosition })));
   }
 }
 
