@@ -8,3 +8,6 @@ export * from './templates';
 export * from './visits';
 export * from './visit-records';
 export * from './sync';
+export * from './billing';
+export * from './messages';
+export * from './follow-up';
