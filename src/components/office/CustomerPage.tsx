@@ -5,7 +5,11 @@ import { linkButtonClass } from '../ui/Button';
 import { SeverityBadge } from '../ui/SeverityBadge';
 import { api, type Json } from './api';
 import { CustomerForm } from './CustomerForm';
+import { formatDocumentNumber } from '../../lib/billing/document-numbers';
+import { formatMoney } from '../../lib/trade';
 import { dayLabel, STATUS_LABEL } from './format';
+
+const dateLabel = (instant: string) => new Date(instant).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
 import { island } from './query-client';
 import { Panel } from './Panel';
 
@@ -18,7 +22,7 @@ function CustomerPage({ customerId }: { customerId: string }) {
   });
   if (history.isLoading) return <p>Loading…</p>;
   if (history.isError) return <p role="alert" className="font-bold text-sev-now">{(history.error as Error).message}</p>;
-  const { customer, vehicles, visits } = history.data!;
+  const { customer, vehicles, visits, invoices } = history.data!;
   return (
     <div className="grid grid-cols-[minmax(0,3fr)_minmax(0,4fr)] gap-6">
       <Panel title="Details">
@@ -111,8 +115,35 @@ function CustomerPage({ customerId }: { customerId: string }) {
             </table>
           )}
         </Panel>
-        <Panel title="Invoices">
-          <p className="text-ink/80">Invoices appear here once billing is switched on.</p>
+        <Panel title={`Invoices (${invoices.length})`}>
+          {invoices.length === 0 ? (
+            <p>No invoices yet.</p>
+          ) : (
+            <table className="w-full text-left text-[15px]">
+              <thead>
+                <tr className="border-b border-ink/20">
+                  <th className="py-1 pr-3">Invoice</th>
+                  <th className="py-1 pr-3">Issued</th>
+                  <th className="py-1 pr-3">Status</th>
+                  <th className="py-1 text-right">Total</th>
+                </tr>
+              </thead>
+              <tbody>
+                {invoices.map((invoice) => (
+                  <tr key={invoice.id} className="border-b border-ink/10">
+                    <td className="py-1 pr-3">
+                      <a href={`/office/invoices/${invoice.id}`} className="font-mono text-brand underline">
+                        {invoice.number === null ? 'Draft' : formatDocumentNumber('invoice', invoice.number)}
+                      </a>
+                    </td>
+                    <td className="py-1 pr-3">{invoice.issuedAt ? dateLabel(invoice.issuedAt) : '—'}</td>
+                    <td className="py-1 pr-3">{invoice.status}</td>
+                    <td className="py-1 text-right font-mono">{formatMoney(invoice.totalMinor, invoice.currency)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
         </Panel>
       </div>
     </div>

@@ -7,6 +7,7 @@ import type { Severity } from '../../lib/sync/operations';
 import { SEVERITY_LABEL, SeverityIcon } from '../ui/SeverityBadge';
 import { api, type Json } from './api';
 import { dayLabel } from './format';
+import { formatMoney } from '../../lib/trade';
 import { Panel } from './Panel';
 import { island } from './query-client';
 
@@ -85,20 +86,69 @@ function Dashboard() {
           </table>
         </Panel>
       </div>
-      <div className="grid grid-cols-2 gap-5">
-        <Panel title="Advised work accepted">
-          {d.advisedWork ? (
-            <p>
-              {d.advisedWork.accepted} of {d.advisedWork.offered} accepted
-            </p>
-          ) : (
-            <p className="text-ink/80">Shown here once customers can approve advised work from their service record.</p>
-          )}
+      <div className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-5">
+        <Panel title="Advised work (same weeks)">
+          <AdvisedWork advised={d.advisedWork} currency={d.money.currency} />
         </Panel>
-        <Panel title="Money invoiced and paid">
-          {d.money ? <p>{d.money.weeks.length} weeks of figures</p> : <p className="text-ink/80">Shown here once invoicing is switched on.</p>}
+        <Panel title="Money invoiced and paid (same weeks)">
+          {d.money.weeks.every((w) => w.invoicedMinor === 0 && w.paidMinor === 0) ? (
+            <p className="text-ink/80">No invoices issued or paid in these weeks.</p>
+          ) : (
+          <div className="h-64">
+            <ResponsiveContainer width="100%" height="100%">
+              <BarChart data={d.money.weeks.map((w) => ({ week: dayLabel(w.week, 'd MMM'), invoiced: w.invoicedMinor, paid: w.paidMinor }))} margin={{ top: 8, right: 8, bottom: 0, left: 24 }}>
+                <CartesianGrid strokeDasharray="3 3" vertical={false} />
+                <XAxis dataKey="week" tick={{ fontSize: 13 }} />
+                <YAxis tickFormatter={(minor: number) => formatMoney(minor, d.money.currency).replace(/\.00$/, '')} tick={{ fontSize: 13 }} />
+                <Tooltip formatter={(minor) => formatMoney(Number(minor), d.money.currency)} />
+                <Legend />
+                <Bar dataKey="invoiced" name="Invoiced (less credit notes)" fill="#0d5c63" isAnimationActive={false} />
+                <Bar dataKey="paid" name="Paid" fill="#f0b429" isAnimationActive={false} />
+              </BarChart>
+            </ResponsiveContainer>
+          </div>
+          )}
+          <p className="mt-2 text-sm">
+            These weeks: invoiced {formatMoney(sumOf(d.money.weeks, 'invoicedMinor'), d.money.currency)}, paid {formatMoney(sumOf(d.money.weeks, 'paidMinor'), d.money.currency)}.{' '}
+            <a href="/office/invoices" className="text-brand underline">
+              Invoices
+            </a>
+          </p>
         </Panel>
       </div>
+    </div>
+  );
+}
+
+function sumOf<T>(rows: T[], key: keyof T): number {
+  return rows.reduce((total, row) => total + Number(row[key]), 0);
+}
+
+function AdvisedWork({ advised, currency }: { advised: Data['advisedWork']; currency: string }) {
+  if (advised.offered === 0) return <p className="text-ink/80">No advised work priced in these weeks.</p>;
+  const parts = [
+    { label: 'Accepted', n: advised.accepted, className: 'bg-sev-ok' },
+    { label: 'Waiting', n: advised.pending, className: 'bg-ink/30' },
+    { label: 'Declined', n: advised.declined, className: 'bg-sev-now' },
+  ];
+  return (
+    <div className="flex flex-col gap-3">
+      <p className="text-lg">
+        <strong className="text-3xl">{advised.accepted}</strong> of {advised.offered} accepted, worth <strong>{formatMoney(advised.acceptedMinor, currency)}</strong>
+      </p>
+      <div className="flex h-6 overflow-hidden rounded border border-ink/30" aria-hidden="true">
+        {parts.map((p) => (p.n > 0 ? <div key={p.label} className={p.className} style={{ width: `${(100 * p.n) / advised.offered}%` }} /> : null))}
+      </div>
+      <ul className="flex gap-4 text-sm">
+        {parts.map((p) => (
+          <li key={p.label} className="flex items-center gap-1">
+            <span className={`inline-block size-3 rounded-sm ${p.className}`} aria-hidden="true" /> {p.label}: <strong>{p.n}</strong>
+          </li>
+        ))}
+      </ul>
+      <a href="/office/advised-work" className="text-brand underline">
+        Advised work
+      </a>
     </div>
   );
 }

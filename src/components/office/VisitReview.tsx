@@ -85,6 +85,11 @@ function VisitReview({ visitId, timeZone }: { visitId: string; timeZone: string 
               {(review.error as Error).message}
             </p>
           )}
+          {['signed_off', 'reviewed', 'invoiced', 'paid'].includes(visit.status) && (
+            <a href={`/office/visits/${visit.id}/follow-up`} className="text-brand underline">
+              Follow-up: service record, invoice, advised work
+            </a>
+          )}
           {openConflicts.length > 0 && (
             <a href={`/office/conflicts?visitId=${visit.id}`} className="font-bold text-sev-now underline">
               Resolve {openConflicts.length} open conflict{openConflicts.length === 1 ? '' : 's'}

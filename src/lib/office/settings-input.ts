@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { DISTANCE_UNITS } from '../words';
 import { clockTime, optionalNumber } from './form-values';
 import { isValidTimeZone } from './local-time';
-import { parseMajorAmount } from './money-input';
+import { parseMoney } from '../billing/money';
 
 const isCurrency = (code: string) => {
   try {
@@ -38,8 +38,8 @@ export const settingsInput = z
     reminderLeadDays: optionalNumber({ min: 0, max: 365, integer: true }),
   })
   .transform((value, ctx) => {
-    const labourRateMinorPerHour = parseMajorAmount(value.labourRate, value.currency);
-    if (labourRateMinorPerHour === null || labourRateMinorPerHour > 100_000_000) {
+    const labourRateMinorPerHour = parseMoney(value.labourRate, value.currency);
+    if (labourRateMinorPerHour === undefined || labourRateMinorPerHour > 100_000_000) {
       ctx.addIssue({ code: 'custom', path: ['labourRate'], message: 'use an amount such as 62.50' });
     }
     const taxRateBasisPoints = Math.round(Number(value.taxPercent.replace(',', '.')) * 100);

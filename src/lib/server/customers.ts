@@ -142,11 +142,25 @@ export async function customerHistory(organisationId: string, customerId: string
         .from(s.findings)
         .where(inArray(s.findings.visitId, visits.map((v) => v.id)))
     : [];
+  const invoices = await db
+    .select({
+      id: s.invoices.id,
+      visitId: s.invoices.visitId,
+      number: s.invoices.number,
+      status: s.invoices.status,
+      currency: s.invoices.currency,
+      totalMinor: s.invoices.totalMinor,
+      issuedAt: s.invoices.issuedAt,
+      paidAt: s.invoices.paidAt,
+    })
+    .from(s.invoices)
+    .where(and(eq(s.invoices.customerId, customer.id), eq(s.invoices.organisationId, organisationId)))
+    .orderBy(desc(s.invoices.createdAt))
+    .limit(500);
   return {
     customer,
     vehicles,
     visits: visits.map((visit) => ({ ...visit, findings: findings.filter((f) => f.visitId === visit.id) })),
-    // Invoices join here once billing has its tables (issue 7); until then the history has none.
-    invoices: [] as unknown[],
+    invoices,
   };
 }

@@ -1,6 +1,6 @@
 // The office's week at a glance: visits per week by technician, findings by severity, what
-// waits for review. Money figures join here once billing has its tables (issue 7).
-import { and, count, eq, gte, isNull, lte, ne, sql } from 'drizzle-orm';
+// waits for review, advised work accepted, and money invoiced and paid.
+import { and, count, eq, gte, isNotNull, isNull, lte, ne, sql, sum, type AnyColumn } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import * as s from '../../db/schema';
 import { localToday, shiftDate, weekOf } from '../office/local-time';
@@ -25,7 +25,13 @@ export async function dashboard(organisationId: string) {
   );
   const weekStart = sql<string>`to_char(date_trunc('week', ${s.visits.roundDate}::timestamp), 'YYYY-MM-DD')`;
 
-  const [visitsByWeek, findingsBySeverity, awaitingReview, openConflicts, todayVisits] = await Promise.all([
+  // Instants fall into the business's own weeks (Monday first), as the rounds do.
+  const localWeek = (instant: AnyColumn) => sql<string>`to_char(date_trunc('week', ${instant} at time zone ${org.timeZone}), 'YYYY-MM-DD')`;
+  const inLocalWindow = (instant: AnyColumn) =>
+    and(sql`(${instant} at time zone ${org.timeZone})::date >= ${from}::date`, sql`(${instant} at time zone ${org.timeZone})::date <= ${to}::date`);
+  const money = (rows: { week: string; amount: string | null }[], week: string) => Number(rows.find((r) => r.week === week)?.amount ?? 0);
+
+  const [visitsByWeek, findingsBySeverity, awaitingReview, openConflicts, todayVisits, invoiced, credited, paid, advised] = await Promise.all([
     db
       .select({ week: weekStart, technicianId: s.visits.technicianId, technicianName: s.user.name, visits: count() })
       .from(s.visits)
@@ -44,7 +50,30 @@ export async function dashboard(organisationId: string) {
       .select({ n: count() })
       .from(s.visits)
       .where(and(eq(s.visits.organisationId, organisationId), eq(s.visits.roundDate, today), ne(s.visits.status, 'cancelled'))),
+    db
+      .select({ week: localWeek(s.invoices.issuedAt), amount: sum(s.invoices.totalMinor) })
+      .from(s.invoices)
+      .where(and(eq(s.invoices.organisationId, organisationId), eq(s.invoices.currency, org.currency), isNotNull(s.invoices.issuedAt), inLocalWindow(s.invoices.issuedAt)))
+      // By position: the week expression carries the time zone as a parameter, and PostgreSQL
+      // cannot see that two parameters are the same value.
+      .groupBy(sql`1`),
+    db
+      .select({ week: localWeek(s.creditNotes.issuedAt), amount: sum(s.creditNotes.totalMinor) })
+      .from(s.creditNotes)
+      .where(and(eq(s.creditNotes.organisationId, organisationId), eq(s.creditNotes.currency, org.currency), inLocalWindow(s.creditNotes.issuedAt)))
+      .groupBy(sql`1`),
+    db
+      .select({ week: localWeek(s.payments.receivedAt), amount: sum(s.payments.amountMinor) })
+      .from(s.payments)
+      .where(and(eq(s.payments.organisationId, organisationId), eq(s.payments.currency, org.currency), inLocalWindow(s.payments.receivedAt)))
+      .groupBy(sql`1`),
+    db
+      .select({ decision: s.advisedWork.decision, items: count(), amount: sum(s.advisedWork.priceMinor) })
+      .from(s.advisedWork)
+      .where(and(eq(s.advisedWork.organisationId, organisationId), inLocalWindow(s.advisedWork.createdAt)))
+      .groupBy(s.advisedWork.decision),
   ]);
+  const advisedOf = (decision: s.AdvisedDecision) => advised.find((r) => r.decision === decision);
 
   const technicians = [...new Map(visitsByWeek.map((r) => [r.technicianId, r.technicianName])).entries()]
     .map(([id, name]) => ({ id, name }))
@@ -65,9 +94,18 @@ export async function dashboard(organisationId: string) {
     awaitingReview: awaitingReview[0]?.n ?? 0,
     openConflicts: openConflicts[0]?.n ?? 0,
     todayVisits: todayVisits[0]?.n ?? 0,
-    // Advised work accepted and money invoiced and paid: filled in by billing (issue 7).
-    money: null as null | { currency: string; weeks: { week: string; invoicedMinor: number; paidMinor: number }[] },
-    advisedWork: null as null | { offered: number; accepted: number },
+    // Invoiced is what was issued less what credit notes took back, in the business's currency.
+    money: {
+      currency: org.currency,
+      weeks: weeks.map((week) => ({ week, invoicedMinor: money(invoiced, week) - money(credited, week), paidMinor: money(paid, week) })),
+    },
+    advisedWork: {
+      offered: advised.reduce((n, r) => n + r.items, 0),
+      accepted: advisedOf('approved')?.items ?? 0,
+      declined: advisedOf('declined')?.items ?? 0,
+      pending: advisedOf('pending')?.items ?? 0,
+      acceptedMinor: Number(advisedOf('approved')?.amount ?? 0),
+    },
   };
 }
 
