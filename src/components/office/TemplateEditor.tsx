@@ -317,7 +317,7 @@ function ItemEditor({ form, section, index, count, onMove, onRemove }: { form: C
   const kind = useWatch({ control: form.control, name: `${path}.kind` });
   const errors = get(form.formState.errors, path) as Record<string, { message?: string }> | undefined;
   const problems = errors ? Object.entries(errors).filter(([, e]) => e?.message).map(([k, e]) => `${k}: ${e.message}`) : [];
-  const cell = 'min-h-9 rounded border border-ink/40 bg-white px-1 text-[15px]';
+  const cell = 'min-h-9 rounded border border-ink/40 bg-white px-1 text-[15px] font-normal';
   const n = `${index + 1}`;
   return (
     <div className={`rounded border p-2 ${problems.length ? 'border-2 border-sev-now' : 'border-ink/15'}`}>
@@ -333,7 +333,7 @@ function ItemEditor({ form, section, index, count, onMove, onRemove }: { form: C
             ))}
           </select>
         </label>
-        <label className="flex min-w-64 flex-1 flex-col text-xs font-bold">
+        <label className="flex min-w-48 flex-1 flex-col text-xs font-bold">
           Label
           <input {...form.register(`${path}.label`)} className={cell} />
         </label>
@@ -360,7 +360,7 @@ function ItemEditor({ form, section, index, count, onMove, onRemove }: { form: C
             </label>
             <label className="flex flex-col text-xs font-bold">
               Trade check
-              <select {...form.register(`${path}.rule`)} className={`${cell} w-64`}>
+              <select {...form.register(`${path}.rule`)} className={`${cell} w-52`}>
                 <option value="">None: range only</option>
                 {READING_RULES.map((r) => (
                   <option key={r.rule} value={r.rule}>
