@@ -332,7 +332,7 @@ function VisitReview({ visitId, timeZone }: { visitId: string; timeZone: string 
       </details>
 
       <Dialog open={photo !== null} title={photo?.caption || 'Photo'} onClose={() => setPhoto(null)} wide>
-        {photo?.url ? <img src={photo.url} alt={photo.caption || 'Photo from the visit'} className="mx-auto max-h-[75vh]" /> : <p>The picture is not on the server yet.</p>}
+        {photo?.url ? <img src={photo.url} alt={photo.caption || 'Photo from the visit'} className="mx-auto max-h-[75vh]" /> : <p>The picture is not on the server.</p>}
       </Dialog>
     </div>
   );
@@ -345,19 +345,25 @@ function Photos({ photos, onOpen }: { photos: Photo[]; onOpen: (photo: Photo) =>
       {photos.map((p) => (
         <li key={p.id}>
           <button type="button" onClick={() => onOpen(p)} className="block rounded border border-ink/30 bg-ink/5 hover:border-brand" aria-label={`Open photo${p.caption ? `: ${p.caption}` : ''}`}>
-            {p.thumbnailUrl || p.url ? (
-              <img src={p.thumbnailUrl ?? p.url!} alt="" className="size-24 rounded object-cover" loading="lazy" />
-            ) : (
-              <span className="flex size-24 flex-col items-center justify-center p-1 text-center text-xs">
-                <span className="font-bold">Photo</span>
-                <span>{Math.round(p.sizeBytes / 1024)} kB</span>
-                <span>not on the server yet</span>
-              </span>
-            )}
+            <Thumbnail photo={p} />
           </button>
         </li>
       ))}
     </ul>
+  );
+}
+
+/** The thumbnail, or what the row says about the photo when the picture cannot be shown. */
+function Thumbnail({ photo }: { photo: Photo }) {
+  const [failed, setFailed] = useState(false);
+  const src = photo.thumbnailUrl ?? photo.url;
+  if (src && !failed) return <img src={src} alt="" onError={() => setFailed(true)} className="size-24 rounded object-cover" loading="lazy" />;
+  return (
+    <span className="flex size-24 flex-col items-center justify-center p-1 text-center text-xs">
+      <span className="font-bold">Photo</span>
+      <span>{Math.round(photo.sizeBytes / 1024)} kB</span>
+      <span>cannot be shown</span>
+    </span>
   );
 }
 

@@ -6,7 +6,7 @@ import type { CustomerInput } from '../office/customer-input';
 import type { TablePage, TableQuery } from '../office/table-query';
 import type { CUSTOMER_SORTS } from '../office/customer-input';
 import { HttpError } from './http';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 import { containsPattern, orderFor, pageWindow } from './table-sql';
 
 export type CustomerRow = {
@@ -79,7 +79,7 @@ export async function getCustomer(organisationId: string, customerId: string) {
 }
 
 export async function createCustomer(organisationId: string, input: CustomerInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [row] = await tx
       .insert(s.customers)
       .values({ organisationId, ...input })
@@ -89,7 +89,7 @@ export async function createCustomer(organisationId: string, input: CustomerInpu
 }
 
 export async function updateCustomer(organisationId: string, customerId: string, input: CustomerInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [row] = await tx
       .update(s.customers)
       .set({ ...input, updatedAt: new Date(), changeSeq: s.nextChangeSeq })

@@ -5,7 +5,7 @@ import * as s from '../../db/schema';
 import type { ModelNoteInput } from '../office/model-note-input';
 import type { TablePage, TableQuery } from '../office/table-query';
 import { HttpError } from './http';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 import { containsPattern, pageWindow } from './table-sql';
 
 export type ModelNoteRow = typeof s.modelNotes.$inferSelect;
@@ -55,14 +55,14 @@ export async function matchingModelNotes(organisationId: string, vehicle: { make
 }
 
 export async function createModelNote(organisationId: string, input: ModelNoteInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [row] = await tx.insert(s.modelNotes).values({ organisationId, ...input }).returning();
     return row!;
   });
 }
 
 export async function updateModelNote(organisationId: string, noteId: string, input: ModelNoteInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [row] = await tx
       .update(s.modelNotes)
       .set({ ...input, updatedAt: new Date(), changeSeq: s.nextChangeSeq })

@@ -1,7 +1,8 @@
-// How the office sees a photo row. The bytes are served by the photo endpoint of the sync
-// service (GET /api/photos/{sha256}, thumbnails beside it); until it serves them, the review
-// shows what the row holds.
+// How the office sees a photo row: its bytes through the photo endpoint of the sync service,
+// which checks the viewer may see a visit holding that photo; the thumbnail once the server has
+// made one.
 import type * as s from '../../db/schema';
+import { photoUrl } from './sync/pull';
 
 export function photoView(photo: typeof s.photos.$inferSelect) {
   return {
@@ -14,7 +15,7 @@ export function photoView(photo: typeof s.photos.$inferSelect) {
     width: photo.width,
     height: photo.height,
     createdAt: photo.createdAt,
-    url: null as string | null,
-    thumbnailUrl: null as string | null,
+    url: photoUrl(photo.sha256) as string | null,
+    thumbnailUrl: photo.thumbnailKey ? `${photoUrl(photo.sha256)}/thumbnail` : null,
   };
 }

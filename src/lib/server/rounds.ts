@@ -11,7 +11,7 @@ import type { BookVisitInput, MoveVisitInput, ReorderRoundInput } from '../offic
 import { HttpError } from './http';
 import { getOrganisation } from './organisation';
 import { currentVersionId } from './templates';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 
 const plannedVisitColumns = {
   id: s.visits.id,
@@ -78,7 +78,7 @@ export async function roundsWeek(organisationId: string, weekDate?: string) {
 }
 
 export async function bookVisit(organisationId: string, input: BookVisitInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const org = await getOrganisation(organisationId, tx);
     const [vehicle] = await tx
       .select({ id: s.vehicles.id, customerId: s.vehicles.customerId })
@@ -114,7 +114,7 @@ export async function bookVisit(organisationId: string, input: BookVisitInput) {
 }
 
 export async function moveVisit(organisationId: string, visitId: string, input: MoveVisitInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const org = await getOrganisation(organisationId, tx);
     const before = await lockVisit(tx, organisationId, visitId);
     if (before.status !== 'booked') {
@@ -146,7 +146,7 @@ export async function moveVisit(organisationId: string, visitId: string, input: 
 }
 
 export async function cancelVisit(organisationId: string, visitId: string) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const before = await lockVisit(tx, organisationId, visitId);
     if (before.status !== 'booked') {
       throw new HttpError(409, `This visit is ${before.status.replace('_', ' ')}: only a booked visit can be cancelled.`);
@@ -163,7 +163,7 @@ export async function cancelVisit(organisationId: string, visitId: string) {
 
 /** Puts a round in the order the office chose; the list must be exactly the round's visits. */
 export async function reorderRound(organisationId: string, input: ReorderRoundInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const round = await roundOf(tx, organisationId, input.technicianId, input.roundDate);
     const known = new Set(round.map((v) => v.id));
     const sent = new Set(input.visitIds);

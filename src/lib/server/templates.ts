@@ -14,7 +14,7 @@ import type {
 } from '../office/template-input';
 import { isUniqueViolation } from './db-errors';
 import { HttpError } from './http';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 
 /** Content with optional fixed ids, so the seed can make the same rows on every run. */
 export type VersionContent = {
@@ -192,7 +192,7 @@ export async function getVersionContent(organisationId: string, versionId: strin
 
 export async function createTemplate(organisationId: string, input: NewTemplateInput) {
   const { sections, name, description, labourHours } = input;
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const { template, version } = await insertTemplate(tx, organisationId, { name, description, labourCentiHours: labourHours });
     await writeDraftContent(tx, organisationId, version.id, { sections });
     return { templateId: template.id, draftVersionId: version.id };
@@ -216,7 +216,7 @@ export async function updateTemplateDetails(organisationId: string, templateId: 
 
 /** The template's draft: the open one, or a new one copied from the latest version. */
 export async function startDraft(organisationId: string, templateId: string) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [template] = await tx
       .select({ id: s.checklistTemplates.id })
       .from(s.checklistTemplates)
@@ -246,17 +246,17 @@ export async function startDraft(organisationId: string, templateId: string) {
 }
 
 export async function saveDraft(organisationId: string, versionId: string, content: TemplateContentInput) {
-  await writeSynced(organisationId, (tx) => writeDraftContent(tx, organisationId, versionId, content));
+  await withChangeFeedWrite(organisationId, (tx) => writeDraftContent(tx, organisationId, versionId, content));
   return getVersionContent(organisationId, versionId);
 }
 
 export async function publishDraft(organisationId: string, versionId: string, userId: string) {
-  return writeSynced(organisationId, (tx) => publishVersion(tx, organisationId, versionId, userId));
+  return withChangeFeedWrite(organisationId, (tx) => publishVersion(tx, organisationId, versionId, userId));
 }
 
 /** Throws away a draft. Visits are booked only on published versions, so nothing refers to it. */
 export async function discardDraft(organisationId: string, versionId: string) {
-  await writeSynced(organisationId, async (tx) => {
+  await withChangeFeedWrite(organisationId, async (tx) => {
     await requireDraft(tx, organisationId, versionId);
     await tx.delete(s.templateVersions).where(eq(s.templateVersions.id, versionId));
   });

@@ -6,7 +6,7 @@ import type { TablePage, TableQuery } from '../office/table-query';
 import type { VEHICLE_SORTS, VehicleInput } from '../office/vehicle-input';
 import { HttpError } from './http';
 import { matchingModelNotes } from './model-notes';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 import { containsPattern, orderFor, pageWindow } from './table-sql';
 
 export type VehicleRow = {
@@ -93,7 +93,7 @@ export async function getVehicle(organisationId: string, vehicleId: string) {
 }
 
 export async function createVehicle(organisationId: string, input: VehicleInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     await checkReferences(tx, organisationId, input, null);
     const [row] = await tx
       .insert(s.vehicles)
@@ -104,7 +104,7 @@ export async function createVehicle(organisationId: string, input: VehicleInput)
 }
 
 export async function updateVehicle(organisationId: string, vehicleId: string, input: VehicleInput) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     await checkReferences(tx, organisationId, input, vehicleId);
     const [row] = await tx
       .update(s.vehicles)

@@ -10,7 +10,7 @@ import { HttpError } from './http';
 import { matchingModelNotes } from './model-notes';
 import { getOrganisation } from './organisation';
 import { getVersionContent } from './templates';
-import { writeSynced } from './synced-write';
+import { withChangeFeedWrite } from './change-feed';
 import { containsPattern, orderFor, pageWindow } from './table-sql';
 import { photoView } from './photo-view';
 import { judgeRecordedReading } from '../office/reading-judgement';
@@ -268,7 +268,7 @@ function reviewVerdict(status: s.VisitStatus, openConflicts: number): { allowed:
 
 /** Marks a signed-off visit reviewed. Refused while it has open conflicts. */
 export async function markReviewed(organisationId: string, visitId: string, reviewerId: string) {
-  return writeSynced(organisationId, async (tx) => {
+  return withChangeFeedWrite(organisationId, async (tx) => {
     const [visit] = await tx
       .select({ status: s.visits.status })
       .from(s.visits)
