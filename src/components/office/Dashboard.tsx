@@ -33,7 +33,7 @@ function Dashboard() {
         <Tile label="Visits today" value={d.todayVisits} href="/office/rounds" />
         <Tile label="Visits this week" value={visitsThisWeek} href="/office/rounds" />
         <Tile label="Signed off, waiting for review" value={d.awaitingReview} href="/office/visits?status=signed_off" strong={d.awaitingReview > 0} />
-        <Tile label="Open conflicts" value={d.openConflicts} href="/office/visits?conflicts=1" strong={d.openConflicts > 0} />
+        <Tile label="Open conflicts" value={d.openConflicts} href="/office/conflicts" strong={d.openConflicts > 0} />
       </div>
       <div className="grid grid-cols-[minmax(0,3fr)_minmax(0,2fr)] gap-5">
         <Panel title={`Visits per week by technician (last ${d.weeks.length} weeks)`}>
