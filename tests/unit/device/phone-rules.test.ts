@@ -1,7 +1,7 @@
 // Small rules of the phone app: what the service worker may answer offline, how sync backs off,
 // how far a visit has got, which part a checklist item means, how big a stored photo is.
 import { describe, expect, it } from 'vitest';
-import { technicianWorkbox, TECHNICIAN_SHELLS } from '../../../src/lib/pwa-config.mjs';
+import { technicianFiles, technicianWorkbox, TECHNICIAN_SHELLS } from '../../../src/lib/pwa-config.mjs';
 import { backoffDelay } from '../../../src/lib/device/sync-scheduler';
 import { itemDone, itemsLeft, visitProgress } from '../../../src/lib/device/visit-progress';
 import { suggestPart } from '../../../src/lib/device/part-suggestion';
@@ -30,6 +30,28 @@ describe('service worker navigation', () => {
   it('does not mistake look-alike paths for shells', () => {
     expect(allowed('/rounds-report')).toBe(false);
     expect(allowed('/visitors')).toBe(false);
+  });
+});
+
+describe('what the phone precaches', () => {
+  const build: Record<string, string> = {
+    'round/index.html': '<link href="/_astro/site.css"><astro-island component-url="/_astro/RoundApp.js" renderer-url="/_astro/client.js">',
+    'icons/icon.svg': '<svg/>',
+    '_astro/RoundApp.js': 'import{a}from"./shell.js";const m=["_astro/Lazy.js"];import("./Pad.js")',
+    '_astro/shell.js': 'export const a=1',
+    '_astro/Pad.js': 'export default 1',
+    '_astro/Lazy.js': 'export default 2',
+    '_astro/client.js': 'export{}',
+    '_astro/site.css': 'body{font:url(/_astro/font.woff2)}',
+    '_astro/font.woff2': '',
+    '_astro/OfficeCharts.js': 'import"./shell.js"',
+  };
+
+  it('keeps the shells, icons and everything they load, and leaves the office’s scripts out', () => {
+    const kept = technicianFiles(new Set(Object.keys(build)), (f) => build[f]!);
+    expect([...kept].sort()).toEqual(
+      ['_astro/Lazy.js', '_astro/Pad.js', '_astro/RoundApp.js', '_astro/client.js', '_astro/font.woff2', '_astro/shell.js', '_astro/site.css', 'icons/icon.svg', 'round/index.html'].sort(),
+    );
   });
 });
 
