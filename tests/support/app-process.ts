@@ -1,5 +1,5 @@
 // A server process of the built app of our own, for tests that must kill or starve it without
-// disturbing the shared test server other files use (dist/server/entry.mjs, like npm test).
+// disturbing the shared test server other files use (scripts/app-server.mjs, like npm test).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
@@ -21,7 +21,7 @@ export type AppProcess = { child: ChildProcess; baseUrl: string; stderr: () => s
 
 export async function startApp(env: Record<string, string>, port: number): Promise<AppProcess> {
   const root = process.env.TICKOVER_ROOT ?? process.cwd();
-  const child = spawn(process.execPath, [join(root, 'dist', 'server', 'entry.mjs')], {
+  const child = spawn(process.execPath, [join(root, 'scripts', 'app-server.mjs')], {
     cwd: root,
     env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), PUBLIC_BASE_URL: '', ...env },
     stdio: ['ignore', 'ignore', 'pipe'],
