@@ -19,7 +19,8 @@ export async function freePort(): Promise<number> {
 
 export type AppProcess = { child: ChildProcess; baseUrl: string; stderr: () => string; stop: () => Promise<void> };
 
-export async function startApp(env: Record<string, string>, port: number): Promise<AppProcess> {
+/** `waitForHealth: false` for a server that does not answer plain HTTP (one with its own certificate). */
+export async function startApp(env: Record<string, string>, port: number, { waitForHealth = true } = {}): Promise<AppProcess> {
   const root = process.env.TICKOVER_ROOT ?? process.cwd();
   const child = spawn(process.execPath, [join(root, 'scripts', 'app-server.mjs')], {
     cwd: root,
@@ -29,7 +30,7 @@ export async function startApp(env: Record<string, string>, port: number): Promi
   let stderr = '';
   child.stderr!.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
   const baseUrl = `http://127.0.0.1:${port}`;
-  for (let i = 0; i < 200; i++) {
+  for (let i = 0; waitForHealth && i < 200; i++) {
     if (child.exitCode !== null) throw new Error(`the app exited early: ${stderr}`);
     try {
       if ((await fetch(`${baseUrl}/api/health`)).ok) break;
