@@ -14,6 +14,7 @@ import { templateContentInput } from '../../lib/office/template-input';
 import { insertTemplate, publishVersion, writeDraftContent } from '../../lib/server/templates';
 import { ANNUAL_SERVICE, INTERIM_SERVICE, type ChecklistItemSeed, type ChecklistSeed } from './checklists';
 import { seedId } from './ids';
+import { seedInvoices } from './invoices';
 import {
   CHECKLIST_FOR_VEHICLE,
   CUSTOMERS,
@@ -43,6 +44,7 @@ export async function seedDemo(db: Database, options: SeedOptions = {}) {
       items.set(checklist.key, await seedChecklist(tx, organisationId, checklist, userIds.get('owner')!));
     }
     await seedWeek(tx, organisationId, userIds, items, partIds, today);
+    await seedInvoices(tx, organisationId, userIds.get('office')!);
   });
 }
 

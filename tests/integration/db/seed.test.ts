@@ -46,6 +46,10 @@ describe('demo seed', () => {
       expect(first.checklist_templates).toHaveLength(2);
       expect(first.visits!.length).toBeGreaterThanOrEqual(10);
       expect(first.sign_offs!.length).toBeGreaterThan(0);
+      // The reviewed visits are invoiced, the oldest one paid, so billing and the dashboard show money.
+      expect(first.invoices).toHaveLength(2);
+      expect(first.payments).toHaveLength(1);
+      expect(first.document_counters).toHaveLength(1);
     } finally {
       await pool.end();
       await scratch.drop();
