@@ -43,8 +43,13 @@ export async function seedDemo(db: Database, options: SeedOptions = {}) {
     for (const checklist of [ANNUAL_SERVICE, INTERIM_SERVICE]) {
       items.set(checklist.key, await seedChecklist(tx, organisationId, checklist, userIds.get('owner')!));
     }
-    await seedWeek(tx, organisationId, userIds, items, partIds, today);
-    await seedInvoices(tx, organisationId, userIds.get('office')!);
+    // The week is laid out once, around the day of the first seed: laying it out again on a later
+    // day would book the same cars twice in overlapping slots. `npm run demo:reset` starts over.
+    const [anyVisit] = await tx.select({ id: s.visits.id }).from(s.visits).where(eq(s.visits.organisationId, organisationId)).limit(1);
+    if (!anyVisit) {
+      await seedWeek(tx, organisationId, userIds, items, partIds, today);
+      await seedInvoices(tx, organisationId, userIds.get('office')!);
+    }
   });
 }
 

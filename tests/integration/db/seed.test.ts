@@ -37,9 +37,13 @@ describe('demo seed', () => {
       const first = await snapshot(client);
       await seedDemo(db, { today });
       const second = await snapshot(client);
+      // A later day must not lay the week out again: the same cars would be booked twice.
+      await seedDemo(db, { today: new Date('2026-12-03T10:00:00Z') });
+      const dayAfter = await snapshot(client);
       await client.end();
 
       expect(second).toEqual(first);
+      expect(dayAfter).toEqual(first);
       expect(first.user).toHaveLength(4);
       expect(first.customers).toHaveLength(12);
       expect(first.vehicles!.length).toBeGreaterThanOrEqual(12);
