@@ -54,6 +54,9 @@ describe('demo seed', () => {
       expect(first.invoices).toHaveLength(2);
       expect(first.payments).toHaveLength(1);
       expect(first.document_counters).toHaveLength(1);
+      // One note that arrived after the customer signed waits in the office's conflict list.
+      expect(first.conflicts).toHaveLength(1);
+      expect(first.conflicts![0]).toContain('visit_locked');
     } finally {
       await pool.end();
       await scratch.drop();
