@@ -8,7 +8,7 @@ import { expect } from 'vitest';
 import * as s from '../../../src/db/schema';
 import { createRecordLink } from '../../../src/lib/server/record-links';
 import { testDb, testPool } from '../../support/database';
-import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../../support/fixtures';
+import { createOrganisation, FIXTURE_PASSWORD } from '../../support/fixtures';
 import { call, callJson, signIn, type Session } from '../../support/http';
 import { publishedChecklist, syncedSignedOffVisit, visitFor } from '../../support/office-fixtures';
 import { createSignedOffVisit, createVisit, createVisitSetup, type VisitFixture } from '../../support/visit-fixtures';
