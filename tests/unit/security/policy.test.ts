@@ -50,6 +50,7 @@ describe('a cross-site write', () => {
 
   it("trusts X-Forwarded-Host and -Proto only from a proxy we trust", () => {
     delete process.env.PUBLIC_BASE_URL;
+    delete process.env.TRUST_PROXY;
     const proxied = { host: 'internal:8080', 'x-forwarded-host': 'servicing.example', 'x-forwarded-proto': 'https', origin: 'https://servicing.example' };
     expect(crossSiteRefusal(write(proxied))).not.toBeNull();
     process.env.TRUST_PROXY = '1';
