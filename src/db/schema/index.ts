@@ -8,3 +8,4 @@ export * from './templates';
 export * from './visits';
 export * from './visit-records';
 export * from './sync';
+export * from './van';
