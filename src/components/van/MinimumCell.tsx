@@ -1,0 +1,59 @@
+// One van's minimum for one part, edited in place in the stock table.
+import { useState, type FormEvent } from 'react';
+import { requestJson } from '../ui/request-json';
+
+type Props = { technicianId: string; partId: string; partNumber: string; minimum: number | null };
+
+export default function MinimumCell({ technicianId, partId, partNumber, minimum }: Props) {
+  const [value, setValue] = useState(minimum === null ? '' : String(minimum));
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const changed = value !== (minimum === null ? '' : String(minimum));
+
+  async function onSubmit(event: FormEvent) {
+    event.preventDefault();
+    if (value !== '' && !(Number(value) >= 0)) {
+      setError('0 or more, or empty for none');
+      return;
+    }
+    setBusy(true);
+    const result = await requestJson('PUT', '/api/office/van-stock/minimums', {
+      technicianId,
+      partId,
+      minimum: value === '' ? null : Number(value),
+    });
+    setBusy(false);
+    if (!result.ok) {
+      setError(result.message);
+      return;
+    }
+    window.location.reload();
+  }
+
+  return (
+    <form onSubmit={onSubmit} className="flex items-center justify-end gap-1">
+      <input
+        aria-label={`Minimum for ${partNumber}`}
+        type="number"
+        inputMode="decimal"
+        min="0"
+        step="any"
+        value={value}
+        onChange={(e) => {
+          setValue(e.target.value);
+          setError(null);
+        }}
+        className="h-9 w-20 rounded border-2 border-ink/40 bg-white px-2 text-right"
+        placeholder="none"
+      />
+      <button type="submit" disabled={!changed || busy} className="h-9 rounded border-2 border-brand px-2 text-sm font-bold text-brand disabled:invisible">
+        Save
+      </button>
+      {error && (
+        <span role="alert" className="text-sm font-bold text-sev-now">
+          {error}
+        </span>
+      )}
+    </form>
+  );
+}
