@@ -17,12 +17,17 @@ export function addBusinessDays(date: string, days: number): string {
   return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
 }
 
-/** The time zone the business keeps its calendar in. */
-export async function organisationTimeZone(organisationId: string): Promise<string> {
+/** The business's calendar and money settings. */
+export async function organisationSettings(organisationId: string): Promise<{ timeZone: string; currency: string }> {
   const [row] = await getDb()
-    .select({ timeZone: organisations.timeZone })
+    .select({ timeZone: organisations.timeZone, currency: organisations.currency })
     .from(organisations)
     .where(eq(organisations.id, organisationId));
   if (!row) throw new Error(`organisation ${organisationId} does not exist`);
-  return row.timeZone;
+  return row;
+}
+
+/** The time zone the business keeps its calendar in. */
+export async function organisationTimeZone(organisationId: string): Promise<string> {
+  return (await organisationSettings(organisationId)).timeZone;
 }

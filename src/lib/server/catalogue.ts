@@ -1,7 +1,10 @@
 // The business's parts and consumables, with the container sizes each oil is stocked in.
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../../db/client';
-import { oilContainers, parts } from '../../db/schema';
+import { nextChangeSeq, oilContainers, parts, type PartKind, type PART_UNITS } from '../../db/schema';
+import { roundQuantity } from '../trade/quantity';
+import { normaliseOilGrade } from '../trade/parts-needed';
+import { HttpError } from './http';
 
 export type CataloguePart = {
   id: string;
@@ -41,4 +44,76 @@ export async function catalogueOf(organisationId: string, options: { activeOnly?
     .where(eq(oilContainers.organisationId, organisationId))
     .orderBy(asc(oilContainers.sizeL));
   return rows.map((r) => ({ ...r, containerSizesL: sizes.filter((s) => s.partId === r.id).map((s) => s.sizeL) }));
+}
+
+export type PartInput = {
+  partNumber: string;
+  description: string;
+  kind: PartKind;
+  unit: (typeof PART_UNITS)[number];
+  oilGrade: string | null;
+  costMinor: number;
+  priceMinor: number;
+  supplier: string;
+  active: boolean;
+};
+
+/** Oil is bought and poured by the litre and named by its grade; nothing else has a grade. */
+function checkPartRules(part: Pick<PartInput, 'kind' | 'unit' | 'oilGrade'>): string | null {
+  if (part.kind !== 'oil') return null;
+  if (part.unit !== 'L') throw new HttpError(422, 'Oil is stocked by the litre: set the unit to L.');
+  if (!part.oilGrade) throw new HttpError(422, 'Give the oil’s SAE grade, e.g. 5W-30.');
+  const grade = normaliseOilGrade(part.oilGrade);
+  if (!grade) throw new HttpError(422, `"${part.oilGrade}" is not an SAE J300 grade: use a label such as 0W-20, 5W-30 or 10W-40.`);
+  return grade;
+}
+
+function isUniqueViolation(error: unknown): boolean {
+  return typeof error === 'object' && error !== null && 'cause' in error
+    ? isUniqueViolation((error as { cause: unknown }).cause)
+    : (error as { code?: string } | null)?.code === '23505';
+}
+
+export async function createPart(organisationId: string, input: PartInput) {
+  const oilGrade = checkPartRules(input);
+  try {
+    const [row] = await getDb()
+      .insert(parts)
+      .values({ ...input, organisationId, oilGrade: input.kind === 'oil' ? oilGrade : null })
+      .returning({ id: parts.id });
+    return row!;
+  } catch (error) {
+    if (isUniqueViolation(error)) throw new HttpError(409, `Part number ${input.partNumber} is already in the catalogue.`);
+    throw error;
+  }
+}
+
+export async function updatePart(organisationId: string, partId: string, change: Partial<PartInput>) {
+  const db = getDb();
+  const [current] = await db.select().from(parts).where(and(eq(parts.id, partId), eq(parts.organisationId, organisationId)));
+  if (!current) throw new HttpError(404, 'No such part in your catalogue.');
+  const next = { ...current, ...change };
+  const oilGrade = checkPartRules(next);
+  try {
+    await db
+      .update(parts)
+      .set({ ...change, oilGrade: next.kind === 'oil' ? oilGrade : null, updatedAt: new Date(), changeSeq: nextChangeSeq })
+      .where(and(eq(parts.id, partId), eq(parts.organisationId, organisationId)));
+  } catch (error) {
+    if (isUniqueViolation(error)) throw new HttpError(409, `Part number ${change.partNumber} is already in the catalogue.`);
+    throw error;
+  }
+}
+
+/** Replaces the container sizes an oil is stocked in. */
+export async function setContainerSizes(organisationId: string, partId: string, sizesL: number[]) {
+  return getDb().transaction(async (tx) => {
+    const [part] = await tx.select({ kind: parts.kind }).from(parts).where(and(eq(parts.id, partId), eq(parts.organisationId, organisationId)));
+    if (!part) throw new HttpError(404, 'No such part in your catalogue.');
+    if (part.kind !== 'oil') throw new HttpError(422, 'Container sizes are for oils; other parts are counted one by one.');
+    await tx.delete(oilContainers).where(eq(oilContainers.partId, partId));
+    const unique = [...new Set(sizesL.map(roundQuantity))];
+    if (unique.length > 0) await tx.insert(oilContainers).values(unique.map((sizeL) => ({ organisationId, partId, sizeL })));
+    return unique.sort((a, b) => a - b);
+  });
 }

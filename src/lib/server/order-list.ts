@@ -1,7 +1,4 @@
 // The office's order list: next week's rounds less the stock in the vans, per supplier.
-import { eq } from 'drizzle-orm';
-import { getDb } from '../../db/client';
-import { organisations } from '../../db/schema';
 import { buildLoadList } from '../trade/load-list';
 import { buildOrderList, type SupplierOrder } from '../trade/order-list';
 import { describePacking } from '../trade/containers';
@@ -9,6 +6,7 @@ import { toCsv } from '../csv';
 import { formatMinorUnits } from '../money-format';
 import { needsInScope } from './load-list';
 import { stockOnHandAcrossVans } from './van-stock';
+import { organisationSettings } from './business-day';
 
 export type OrderList = {
   from: string;
@@ -21,7 +19,7 @@ export type OrderList = {
 };
 
 export async function orderListFor(organisationId: string, from: string, to: string): Promise<OrderList> {
-  const [org] = await getDb().select({ currency: organisations.currency }).from(organisations).where(eq(organisations.id, organisationId));
+  const { currency } = await organisationSettings(organisationId);
   const { planned, visitNeeds, catalogue, gaps } = await needsInScope({ organisationId, from, to });
   const { lines } = buildLoadList({
     visitNeeds,
@@ -33,7 +31,7 @@ export async function orderListFor(organisationId: string, from: string, to: str
   return {
     from,
     to,
-    currency: org?.currency ?? 'GBP',
+    currency,
     visitCount: planned.length,
     suppliers,
     totalCostMinor: suppliers.reduce((sum, s) => sum + s.totalCostMinor, 0),

@@ -1,5 +1,6 @@
 // The shapes of the van endpoints' input, checked with zod at the boundary.
 import { z } from 'zod';
+import { PART_KINDS, PART_UNITS } from '../../db/schema';
 
 export const technicianIdField = z.string().trim().min(1).max(64);
 const day = z.iso.date('must be a date written yyyy-mm-dd');
@@ -54,4 +55,22 @@ export const disposalRequest = z.object({
   siteLicence: z.string().trim().max(100).default(''),
   reference: z.string().trim().max(100).default(''),
   litres: z.number().finite().positive().max(10_000),
+});
+
+const money = z.number().int('must be whole minor units (pence)').min(0).max(100_000_000);
+export const partCreateRequest = z.object({
+  partNumber: z.string().trim().min(1, 'give a part number').max(60),
+  description: z.string().trim().min(1, 'describe the part').max(200),
+  kind: z.enum(PART_KINDS),
+  unit: z.enum(PART_UNITS),
+  oilGrade: z.string().trim().max(20).nullable().default(null),
+  costMinor: money,
+  priceMinor: money,
+  supplier: z.string().trim().max(120).default(''),
+  active: z.boolean().default(true),
+});
+export const partUpdateRequest = partCreateRequest.partial().refine((p) => Object.keys(p).length > 0, 'change at least one field');
+
+export const containerSizesRequest = z.object({
+  sizesL: z.array(z.number().finite().positive().max(1000)).max(6, 'at most six sizes'),
 });
