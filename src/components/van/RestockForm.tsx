@@ -57,9 +57,9 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
       </fieldset>
       {lines.map((line, index) => (
         <div key={line.key} className="flex items-end gap-2">
-          <label className="flex flex-1 flex-col text-sm font-bold">
+          <label className="flex min-w-0 flex-1 flex-col text-sm font-bold">
             Part {index + 1}
-            <select value={line.partId} onChange={(e) => update(line.key, { partId: e.target.value })} className={`${input} font-normal`}>
+            <select value={line.partId} onChange={(e) => update(line.key, { partId: e.target.value })} className={`${input} w-full min-w-0 font-normal`}>
               <option value="">Choose a part…</option>
               {parts.map((p) => (
                 <option key={p.id} value={p.id}>
@@ -68,7 +68,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
               ))}
             </select>
           </label>
-          <label className="flex w-28 flex-col text-sm font-bold">
+          <label className="flex w-24 shrink-0 flex-col text-sm font-bold">
             Quantity{unitOf(line.partId) === 'L' ? ' (L)' : ''}
             <input
               type="number"
@@ -77,7 +77,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
               step={unitOf(line.partId) === 'L' ? '0.1' : '1'}
               value={line.quantity}
               onChange={(e) => update(line.key, { quantity: e.target.value })}
-              className={`${input} font-normal`}
+              className={`${input} w-full font-normal`}
             />
           </label>
           {lines.length > 1 && (

@@ -46,7 +46,7 @@ export default function StockCountForm({ technicianId, parts }: Props) {
       <h2 className="text-lg font-bold">Stock count</h2>
       <label className="flex flex-col text-sm font-bold">
         Part
-        <select name="partId" className={input} defaultValue="">
+        <select name="partId" className={`${input} w-full min-w-0`} defaultValue="">
           <option value="">Choose a part…</option>
           {parts.map((p) => (
             <option key={p.id} value={p.id}>
