@@ -2,7 +2,8 @@
 // and set the container sizes each oil comes in.
 import { useState, type FormEvent } from 'react';
 import type { CataloguePart } from '../../lib/server/catalogue';
-import { displayMoney, formatMinorUnits, minorDigits } from '../../lib/money-format';
+import { formatMinorUnits } from '../../lib/money-format';
+import { formatMoney, minorDigits } from '../../lib/trade/money';
 import { requestJson } from '../ui/request-json';
 
 type Props = { parts: CataloguePart[]; kinds: readonly string[]; currency: string };
@@ -234,8 +235,8 @@ export default function PartsCatalogue({ parts, kinds, currency }: Props) {
                 <td className="px-2 py-1.5">{part.oilGrade ? `oil ${part.oilGrade}` : kindLabel(part.kind)}</td>
                 <td className="px-2 py-1.5">{part.unit === 'L' ? 'litres' : 'each'}</td>
                 <td className="px-2 py-1.5">{part.kind === 'oil' ? part.containerSizesL.map((s) => `${s} L`).join(', ') || 'none set' : ''}</td>
-                <td className="px-2 py-1.5 text-right">{displayMoney(part.costMinor, currency)}</td>
-                <td className="px-2 py-1.5 text-right">{displayMoney(part.priceMinor, currency)}</td>
+                <td className="px-2 py-1.5 text-right">{formatMoney(part.costMinor, currency)}</td>
+                <td className="px-2 py-1.5 text-right">{formatMoney(part.priceMinor, currency)}</td>
                 <td className="px-2 py-1.5">{part.supplier || '–'}</td>
                 <td className="px-2 py-1.5 text-right">
                   <button type="button" onClick={() => setEditing(part.id)} className="min-h-9 rounded border-2 border-brand px-3 font-bold text-brand" aria-label={`Edit ${part.partNumber}`}>

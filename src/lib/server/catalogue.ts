@@ -3,7 +3,7 @@ import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { nextChangeSeq, oilContainers, parts, type PartKind, type PART_UNITS } from '../../db/schema';
 import { roundQuantity } from '../trade/quantity';
-import { normaliseOilGrade } from '../trade/parts-needed';
+import { parseOilGrade } from '../trade/oil';
 import { HttpError } from './http';
 
 export type CataloguePart = {
@@ -63,9 +63,11 @@ function checkPartRules(part: Pick<PartInput, 'kind' | 'unit' | 'oilGrade'>): st
   if (part.kind !== 'oil') return null;
   if (part.unit !== 'L') throw new HttpError(422, 'Oil is stocked by the litre: set the unit to L.');
   if (!part.oilGrade) throw new HttpError(422, 'Give the oil’s SAE grade, e.g. 5W-30.');
-  const grade = normaliseOilGrade(part.oilGrade);
-  if (!grade) throw new HttpError(422, `"${part.oilGrade}" is not an SAE J300 grade: use a label such as 0W-20, 5W-30 or 10W-40.`);
-  return grade;
+  try {
+    return parseOilGrade(part.oilGrade).grade;
+  } catch (error) {
+    throw new HttpError(422, (error as Error).message);
+  }
 }
 
 function isUniqueViolation(error: unknown): boolean {

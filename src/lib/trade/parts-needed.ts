@@ -1,6 +1,7 @@
 // Which parts a visit will use, read from the vehicle's spec and the part items of the visit's
 // checklist: the spec names the filters and plugs by catalogue part, and the oil by grade and
 // capacity. The load list sums these over a round; the order list over a week.
+import { parseOilGrade } from './oil';
 
 export type VehicleForParts = {
   registration: string;
@@ -53,28 +54,16 @@ function slotExpected(partKind: string, fuel: string): boolean {
   }
 }
 
-// SAE J300 grade numbers (TRADE-REFERENCES.md §3, from J300's table): the W (winter) grades and
-// the grades at 100 °C. Only the label is checked here, not whether a given oil meets it.
-const W_GRADES = new Set([0, 5, 10, 15, 20, 25]);
-const HOT_GRADES = new Set([8, 12, 16, 20, 30, 40, 50, 60]);
-
-/** "sae 5w30" → "5W-30"; a mono grade "SAE 30" → "30"; null for a label J300 does not define. */
-export function normaliseOilGrade(label: string): string | null {
-  const multi = /^(?:SAE\s*)?(\d{1,2})\s*W\s*-?\s*(\d{1,2})$/i.exec(label.trim());
-  if (multi) {
-    const [cold, hot] = [Number(multi[1]), Number(multi[2])];
-    return W_GRADES.has(cold) && HOT_GRADES.has(hot) ? `${cold}W-${hot}` : null;
-  }
-  const mono = /^(?:SAE\s*)?(\d{1,2})$/i.exec(label.trim());
-  return mono && HOT_GRADES.has(Number(mono[1])) ? String(Number(mono[1])) : null;
-}
-
-/** Oil grade labels compared loosely: "SAE 5W-30", "5w30" and "5W-30" are the same oil. */
+/**
+ * Oil grade labels compared by their SAE J300 grade: "SAE 5W-30", "5w30" and "5W-30" are the same
+ * oil. A label J300 does not define is compared as written (upper case, letters and digits only).
+ */
 export function oilGradeKey(label: string): string {
-  return label
-    .toUpperCase()
-    .replace(/^SAE\s*/, '')
-    .replace(/[^0-9A-Z]/g, '');
+  try {
+    return parseOilGrade(label).grade;
+  } catch {
+    return label.toUpperCase().replace(/[^0-9A-Z]/g, '');
+  }
 }
 
 /**

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { normaliseOilGrade, oilGradeKey, partsNeededForVisit, type VehicleForParts } from '../../../src/lib/trade/parts-needed';
+import { oilGradeKey, partsNeededForVisit, type VehicleForParts } from '../../../src/lib/trade/parts-needed';
 
 const items = [
   { id: 'i-oil', label: 'Engine oil drained and refilled', partKind: 'oil' },
@@ -75,19 +75,5 @@ describe('partsNeededForVisit', () => {
   it('matches oil grade labels however they are written (SAE J300 names, e.g. "SAE 5W-30")', () => {
     expect(oilGradeKey('SAE 5W-30')).toBe(oilGradeKey('5w30'));
     expect(partsNeededForVisit({ ...petrol, oilGrade: 'sae 5w30' }, items.slice(0, 1), oils).needs[0]!.partId).toBe('oil-5w30');
-  });
-});
-
-describe('normaliseOilGrade (SAE J300 labels, TRADE-REFERENCES.md §3 check cases)', () => {
-  it('accepts and normalises the label forms people type', () => {
-    expect(normaliseOilGrade('5W-30')).toBe('5W-30');
-    expect(normaliseOilGrade('SAE 5W-30')).toBe('5W-30');
-    expect(normaliseOilGrade('5w30')).toBe('5W-30');
-    for (const label of ['0W-8', '0W-16', '10W-60', '20W-20']) expect(normaliseOilGrade(label)).toBe(label);
-    expect(normaliseOilGrade('SAE 30')).toBe('30');
-  });
-
-  it('refuses grade numbers J300 does not have', () => {
-    for (const label of ['7W-30', '5W-35', '5W-25', '30W-40', '35', 'oil']) expect(normaliseOilGrade(label)).toBeNull();
   });
 });
