@@ -5,7 +5,7 @@ import { and, asc, eq, gte, inArray, lte } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { checklistTemplates, customers, oilContainers, parts, templateItems, templateVersions, vehicles, visits } from '../../db/schema';
 import { buildLoadList, type LoadList, type StockPart } from '../trade/load-list';
-import { partsNeededForVisit, type PartNeed } from '../trade/parts-needed';
+import { partsNeededForVisit } from '../trade/parts-needed';
 import { sumQuantities } from '../trade/quantity';
 import { stockLevels } from './van-stock';
 import { usedOilHeld } from './used-oil';

@@ -5,7 +5,7 @@ import { PART_KINDS, PART_UNITS } from '../../db/schema';
 export const technicianIdField = z.string().trim().min(1).max(64);
 const day = z.iso.date('must be a date written yyyy-mm-dd');
 // Litres or a count: positive, and bounded so a slip of the finger cannot load a tanker.
-const quantity = z.number().finite().positive().max(10_000);
+const quantity = z.number().positive().max(10_000);
 const note = z.string().trim().max(500).default('');
 
 export const loadListQuery = z.object({ technicianId: technicianIdField.optional(), date: day.optional() });
@@ -32,14 +32,14 @@ export const stockMovementRequest = z.object({
 export const stockCountRequest = z.object({
   technicianId: technicianIdField,
   partId: z.uuid(),
-  counted: z.number().finite().min(0).max(10_000),
+  counted: z.number().min(0).max(10_000),
   note,
 });
 
 export const minimumRequest = z.object({
   technicianId: technicianIdField,
   partId: z.uuid(),
-  minimum: z.number().finite().min(0).max(10_000).nullable(),
+  minimum: z.number().min(0).max(10_000).nullable(),
 });
 
 // An order list covers up to a month of rounds; longer spans are a planning report, not an order.
@@ -54,7 +54,7 @@ export const disposalRequest = z.object({
   siteName: z.string().trim().min(1, 'name the licensed site').max(200),
   siteLicence: z.string().trim().max(100).default(''),
   reference: z.string().trim().max(100).default(''),
-  litres: z.number().finite().positive().max(10_000),
+  litres: z.number().positive().max(10_000),
 });
 
 const money = z.number().int('must be whole minor units (pence)').min(0).max(100_000_000);
@@ -72,5 +72,5 @@ export const partCreateRequest = z.object({
 export const partUpdateRequest = partCreateRequest.partial().refine((p) => Object.keys(p).length > 0, 'change at least one field');
 
 export const containerSizesRequest = z.object({
-  sizesL: z.array(z.number().finite().positive().max(1000)).max(6, 'at most six sizes'),
+  sizesL: z.array(z.number().positive().max(1000)).max(6, 'at most six sizes'),
 });
