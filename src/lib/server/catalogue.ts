@@ -1,5 +1,5 @@
 // The business's parts and consumables, with the container sizes each oil is stocked in.
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, inArray } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { nextChangeSeq, oilContainers, parts, type PartKind, type PART_UNITS } from '../../db/schema';
 import { roundQuantity } from '../trade/quantity';
@@ -20,30 +20,36 @@ export type CataloguePart = {
   containerSizesL: number[];
 };
 
+/** What the van screens show of a part (no money: technicians read these too). */
+export const stockPartColumns = {
+  id: parts.id,
+  partNumber: parts.partNumber,
+  description: parts.description,
+  kind: parts.kind,
+  unit: parts.unit,
+  oilGrade: parts.oilGrade,
+};
+
+/** Each oil's container sizes, smallest first, for all the business's oils or the ones named. */
+export async function containerSizesOf(organisationId: string, partIds?: string[]): Promise<Map<string, number[]>> {
+  const rows = await getDb()
+    .select({ partId: oilContainers.partId, sizeL: oilContainers.sizeL })
+    .from(oilContainers)
+    .where(and(eq(oilContainers.organisationId, organisationId), partIds ? inArray(oilContainers.partId, partIds) : undefined))
+    .orderBy(asc(oilContainers.sizeL));
+  const sizes = new Map<string, number[]>();
+  for (const r of rows) sizes.set(r.partId, [...(sizes.get(r.partId) ?? []), r.sizeL]);
+  return sizes;
+}
+
 export async function catalogueOf(organisationId: string, options: { activeOnly?: boolean } = {}): Promise<CataloguePart[]> {
-  const db = getDb();
-  const rows = await db
-    .select({
-      id: parts.id,
-      partNumber: parts.partNumber,
-      description: parts.description,
-      kind: parts.kind,
-      unit: parts.unit,
-      oilGrade: parts.oilGrade,
-      costMinor: parts.costMinor,
-      priceMinor: parts.priceMinor,
-      supplier: parts.supplier,
-      active: parts.active,
-    })
+  const rows = await getDb()
+    .select({ ...stockPartColumns, costMinor: parts.costMinor, priceMinor: parts.priceMinor, supplier: parts.supplier, active: parts.active })
     .from(parts)
     .where(and(eq(parts.organisationId, organisationId), options.activeOnly ? eq(parts.active, true) : undefined))
     .orderBy(asc(parts.kind), asc(parts.partNumber));
-  const sizes = await db
-    .select({ partId: oilContainers.partId, sizeL: oilContainers.sizeL })
-    .from(oilContainers)
-    .where(eq(oilContainers.organisationId, organisationId))
-    .orderBy(asc(oilContainers.sizeL));
-  return rows.map((r) => ({ ...r, containerSizesL: sizes.filter((s) => s.partId === r.id).map((s) => s.sizeL) }));
+  const sizes = await containerSizesOf(organisationId);
+  return rows.map((r) => ({ ...r, containerSizesL: sizes.get(r.id) ?? [] }));
 }
 
 export type PartInput = {

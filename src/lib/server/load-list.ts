@@ -3,11 +3,12 @@
 // this module reads the visits, specs, checklists and stock they work on.
 import { and, asc, eq, gte, inArray, lte } from 'drizzle-orm';
 import { getDb } from '../../db/client';
-import { checklistTemplates, customers, oilContainers, parts, templateItems, templateVersions, vehicles, visits } from '../../db/schema';
+import { checklistTemplates, customers, parts, templateItems, templateVersions, vehicles, visits } from '../../db/schema';
 import { buildLoadList, type LoadList, type StockPart } from '../trade/load-list';
 import { partsNeededForVisit } from '../trade/parts-needed';
 import { sumQuantities } from '../trade/quantity';
 import { stockLevels } from './van-stock';
+import { containerSizesOf, stockPartColumns } from './catalogue';
 import { usedOilHeld } from './used-oil';
 import type { Van } from './van-access';
 
@@ -86,29 +87,13 @@ async function needsOf(organisationId: string, planned: PlannedVisit[]) {
 }
 
 async function catalogueFor(organisationId: string, partIds: string[]) {
-  if (partIds.length === 0) return { parts: [], containerSizes: new Map<string, number[]>(), rows: [] };
-  const db = getDb();
-  const rows = await db
-    .select({
-      id: parts.id,
-      partNumber: parts.partNumber,
-      description: parts.description,
-      kind: parts.kind,
-      unit: parts.unit,
-      oilGrade: parts.oilGrade,
-      supplier: parts.supplier,
-      costMinor: parts.costMinor,
-    })
+  if (partIds.length === 0) return { parts: [] as StockPart[], containerSizes: new Map<string, number[]>(), rows: [] };
+  const rows = await getDb()
+    .select({ ...stockPartColumns, supplier: parts.supplier, costMinor: parts.costMinor })
     .from(parts)
     .where(and(eq(parts.organisationId, organisationId), inArray(parts.id, partIds)));
-  const containers = await db
-    .select({ partId: oilContainers.partId, sizeL: oilContainers.sizeL })
-    .from(oilContainers)
-    .where(and(eq(oilContainers.organisationId, organisationId), inArray(oilContainers.partId, partIds)));
-  const containerSizes = new Map<string, number[]>();
-  for (const c of containers) containerSizes.set(c.partId, [...(containerSizes.get(c.partId) ?? []), c.sizeL]);
   const stockParts: StockPart[] = rows.map(({ supplier: _s, costMinor: _c, ...part }) => part);
-  return { parts: stockParts, containerSizes, rows };
+  return { parts: stockParts, containerSizes: await containerSizesOf(organisationId, partIds), rows };
 }
 
 /**

@@ -7,6 +7,7 @@ import { isLowStock } from '../trade/van-stock';
 import { roundQuantity } from '../trade/quantity';
 import { HttpError } from './http';
 import type { Van } from './van-access';
+import { stockPartColumns } from './catalogue';
 
 /** Net stock per part in one van (technicianId given) or summed over every van. */
 export async function stockLevels(db: Executor, organisationId: string, technicianId?: string): Promise<Map<string, number>> {
@@ -73,14 +74,7 @@ export async function vanStock(van: Van): Promise<VanStockRow[]> {
   const partIds = [...new Set([...moved.map((m) => m.partId), ...minimums.map((m) => m.partId)])];
   if (partIds.length === 0) return [];
   const partRows = await db
-    .select({
-      id: parts.id,
-      partNumber: parts.partNumber,
-      description: parts.description,
-      kind: parts.kind,
-      unit: parts.unit,
-      oilGrade: parts.oilGrade,
-    })
+    .select(stockPartColumns)
     .from(parts)
     .where(and(eq(parts.organisationId, van.organisationId), inArray(parts.id, partIds)))
     .orderBy(asc(parts.kind), asc(parts.partNumber));
