@@ -29,7 +29,6 @@ function collections(organisationId: string, technicianId?: string) {
   return getDb()
     .select({
       visitId: visits.id,
-      technicianId: visits.technicianId,
       registration: vehicles.registration,
       litres: readingResults.value,
       collectedAt: collectedAt.as('collected_at'),
@@ -62,17 +61,6 @@ async function lastDisposal(van: Van) {
   return row ?? null;
 }
 
-/** Litres of used oil in the van now: drained since its last disposal. */
-export async function usedOilHeld(van: Van): Promise<number> {
-  const last = await lastDisposal(van);
-  const c = collections(van.organisationId, van.technicianId);
-  const [row] = await getDb()
-    .select({ litres: sql<number>`coalesce(sum(${c.litres}), 0)`.mapWith(Number) })
-    .from(c)
-    .where(last ? gt(c.collectedAt, last.disposedAt) : undefined);
-  return roundQuantity(row?.litres ?? 0);
-}
-
 /** The van's used oil: what it holds, the visits that filled it since its last disposal, and that disposal. */
 export async function usedOilForVan(van: Van) {
   const last = await lastDisposal(van);
@@ -89,6 +77,11 @@ export async function usedOilForVan(van: Van) {
     sinceLastDisposal: since.map((r) => ({ ...r, litres: roundQuantity(r.litres ?? 0), collectedAt: new Date(r.collectedAt).toISOString() })),
     lastDisposal: last ? { ...last, disposedAt: last.disposedAt.toISOString() } : null,
   };
+}
+
+/** Litres of used oil in the van now: drained since its last disposal. */
+export async function usedOilHeld(van: Van): Promise<number> {
+  return (await usedOilForVan(van)).heldL;
 }
 
 export type Disposal = {

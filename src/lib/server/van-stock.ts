@@ -9,17 +9,12 @@ import { HttpError } from './http';
 import type { Van } from './van-access';
 import { stockPartColumns } from './catalogue';
 
-/** Net stock per part in one van (technicianId given) or summed over every van. */
-export async function stockLevels(db: Executor, organisationId: string, technicianId?: string): Promise<Map<string, number>> {
+/** Net stock per part in one van. */
+export async function stockLevels(db: Executor, organisationId: string, technicianId: string): Promise<Map<string, number>> {
   const rows = await db
     .select({ partId: vanStockMovements.partId, level: sql<number>`sum(${vanStockMovements.quantity})`.mapWith(Number) })
     .from(vanStockMovements)
-    .where(
-      and(
-        eq(vanStockMovements.organisationId, organisationId),
-        technicianId ? eq(vanStockMovements.technicianId, technicianId) : undefined,
-      ),
-    )
+    .where(and(eq(vanStockMovements.organisationId, organisationId), eq(vanStockMovements.technicianId, technicianId)))
     .groupBy(vanStockMovements.partId);
   return new Map(rows.map((r) => [r.partId, roundQuantity(r.level)]));
 }
