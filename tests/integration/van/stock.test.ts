@@ -132,7 +132,12 @@ describe('reading van stock', () => {
   });
 
   it('serves the office pages to the office and sends technicians away', async () => {
-    expect((await call(as.office!, `/office/vans?technician=${org.technician.id}`)).status).toBe(200);
+    for (const path of [`/office/vans?technician=${org.technician.id}`, '/office/vans/load-list', '/office/order-list', '/office/used-oil', '/office/parts']) {
+      const response = await call(as.office!, path);
+      expect(response.status, path).toBe(200);
+      expect(await response.text()).not.toContain(other.technician.id);
+    }
+    expect((await call(as.office!, `/office/vans/load-list?technician=${other.technician.id}`)).status).toBe(404);
     expect((await call(as.technician!, '/office/vans')).status).toBe(303);
   });
 });
