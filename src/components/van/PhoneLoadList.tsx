@@ -23,6 +23,7 @@ export default function PhoneLoadList() {
   const [day, setDay] = useState<Day>('tomorrow');
   const [saved, setSaved] = useState<Saved | null>(null);
   const [message, setMessage] = useState<string | null>(null);
+  const [signedOut, setSignedOut] = useState(false);
   const [busy, setBusy] = useState(false);
   const date = localDate(day === 'today' ? 0 : 1);
 
@@ -37,6 +38,7 @@ export default function PhoneLoadList() {
       await set(cacheKey(date), fresh).catch(() => undefined);
     } else {
       setMessage(result.status === 0 ? 'No signal: showing the copy saved on this phone.' : result.message);
+      setSignedOut(result.status === 401);
     }
   }, [date]);
 
@@ -66,6 +68,11 @@ export default function PhoneLoadList() {
         {message && (
           <p role="alert" className="mb-4 rounded border-2 border-sev-soon bg-white p-3 font-bold">
             {message}
+            {signedOut && (
+              <a href="/sign-in?next=/van" className="mt-2 flex min-h-12 items-center justify-center rounded bg-brand px-4 text-white">
+                Sign in
+              </a>
+            )}
           </p>
         )}
         {saved ? (
