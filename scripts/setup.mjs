@@ -10,14 +10,16 @@ import { log } from './lib/run.mjs';
 
 export const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 
-export async function setup({ install = true } = {}) {
+export async function setup({ install = true, appUrl } = {}) {
   if (install) ensurePackages(root);
   const { databaseUrl } = await ensurePostgres(root);
-  const services = await ensureLocalServices(root);
+  // The fakes that call the app back (payment webhooks) need the address it will serve on.
+  const services = await ensureLocalServices(root, { appUrl: process.env.PUBLIC_BASE_URL ?? appUrl });
   return {
     databaseUrl,
     env: {
       BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET ?? localSecret(root, 'auth-secret'),
+      RECORD_LINK_SECRET: process.env.RECORD_LINK_SECRET ?? localSecret(root, 'record-link-secret'),
       ...services,
     },
   };

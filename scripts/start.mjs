@@ -2,14 +2,14 @@
 import { setup, root } from './setup.mjs';
 import { migrate } from './lib/migrate.mjs';
 import { log, runOrThrow } from './lib/run.mjs';
-import { startServer, waitForServer } from './lib/server-process.mjs';
+import { startServer, startWorker, waitForServer } from './lib/server-process.mjs';
 import { DEMO_ACCOUNTS } from './lib/demo-accounts.mjs';
 
 const host = process.env.HOST ?? '127.0.0.1';
 const port = process.env.PORT ?? '4321';
 const url = `http://${host}:${port}`;
 
-const { databaseUrl, env } = await setup();
+const { databaseUrl, env } = await setup({ appUrl: url });
 const appEnv = { ...env, DATABASE_URL: databaseUrl, HOST: host, PORT: port };
 await migrate(root, databaseUrl);
 runOrThrow('npx', ['tsx', 'scripts/seed.ts'], { cwd: root, env: { ...process.env, ...appEnv } });
@@ -17,8 +17,17 @@ log('building the app');
 runOrThrow('npx', ['astro', 'build'], { cwd: root, env: { ...process.env, ...appEnv } });
 
 const server = startServer(root, appEnv);
-for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => server.kill(signal));
-server.on('exit', (code) => process.exit(code ?? 0));
+const worker = startWorker(root, appEnv);
+for (const signal of ['SIGINT', 'SIGTERM']) {
+  process.on(signal, () => {
+    server.kill(signal);
+    worker.kill(signal);
+  });
+}
+server.on('exit', (code) => {
+  worker.kill('SIGTERM');
+  process.exit(code ?? 0);
+});
 await waitForServer(url, server);
 log(`Tickover is serving the demo business at ${url}`);
 log('Demo accounts (password for all: servicing-demo):');

@@ -10,20 +10,19 @@ import { migrate } from './lib/migrate.mjs';
 import { recreateDatabase } from './lib/postgres.mjs';
 import { ensureChromium } from './lib/apt.mjs';
 import { log, runAsync, runOrThrow } from './lib/run.mjs';
-import { startServer, waitForServer } from './lib/server-process.mjs';
+import { startServer, startWorker, waitForServer } from './lib/server-process.mjs';
 
 const args = process.argv.slice(2);
 const vitestOnly = args.includes('--vitest-only');
 const e2eOnly = args.includes('--e2e-only');
 const filters = args.filter((a) => a !== '--vitest-only' && a !== '--e2e-only');
 
-const { databaseUrl, env } = await setup();
+const port = process.env.TEST_PORT ?? '4329';
+const baseUrl = `http://127.0.0.1:${port}`;
+const { databaseUrl, env } = await setup({ appUrl: baseUrl });
 const testDatabase = process.env.TICKOVER_TEST_DB ?? 'tickover_test';
 const testDatabaseUrl = await recreateDatabase(root, databaseUrl, testDatabase);
 await migrate(root, testDatabaseUrl);
-
-const port = process.env.TEST_PORT ?? '4329';
-const baseUrl = `http://127.0.0.1:${port}`;
 const testEnv = {
   ...env,
   DATABASE_URL: testDatabaseUrl,
@@ -33,6 +32,9 @@ const testEnv = {
   TRUST_PROXY: '1',
   TEST_BASE_URL: baseUrl,
   TICKOVER_ROOT: root,
+  // The job queue polls fast and retries soon in tests, so mail arrives within a second or two.
+  JOB_POLL_SECONDS: '0.5',
+  MAIL_RETRY_DELAY_SECONDS: '1',
 };
 const childEnv = { ...process.env, ...testEnv };
 runOrThrow('npx', ['tsx', 'scripts/seed.ts'], { cwd: root, env: childEnv });
@@ -41,6 +43,7 @@ log('building the app for the tests');
 runOrThrow('npx', ['astro', 'build'], { cwd: root, env: childEnv });
 
 const server = startServer(root, testEnv, { stdio: ['ignore', 'ignore', 'inherit'] });
+const worker = startWorker(root, testEnv, { stdio: ['ignore', 'ignore', 'inherit'] });
 let failed = false;
 try {
   await waitForServer(baseUrl, server);
@@ -58,6 +61,7 @@ try {
   }
 } finally {
   server.kill('SIGTERM');
+  worker.kill('SIGTERM');
 }
 log(failed ? 'some tests failed' : 'all tests passed');
 process.exit(failed ? 1 : 0);

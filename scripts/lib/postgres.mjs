@@ -208,13 +208,29 @@ export function withDatabase(url, database) {
   return u.toString();
 }
 
+/**
+ * DROP DATABASE ... WITH (FORCE) as a non-superuser cannot end an autovacuum worker that happens
+ * to be in the database; such a worker finishes within moments, so try again briefly.
+ */
+export async function dropDatabase(client, database, attempts = 20) {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      await client.query(`drop database if exists "${database}" with (force)`);
+      return;
+    } catch (error) {
+      if (attempt >= attempts) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 250));
+    }
+  }
+}
+
 /** Drops and creates `database` (the tests' own), connecting as the app role. */
 export async function recreateDatabase(root, databaseUrl, database) {
   const { default: pg } = await import('pg');
   const client = new pg.Client({ connectionString: withDatabase(databaseUrl, 'postgres') });
   await client.connect();
   try {
-    await client.query(`drop database if exists "${database}" with (force)`);
+    await dropDatabase(client, database);
     await client.query(`create database "${database}"`);
   } finally {
     await client.end();

@@ -1,4 +1,4 @@
-// Runs the built app (dist/server/entry.mjs) and waits until it answers.
+// Runs the built app (dist/server/entry.mjs) and its job worker, and waits until the app answers.
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
 
@@ -9,6 +9,18 @@ export function startServer(root, env, { stdio = 'inherit' } = {}) {
     stdio,
   });
   return child;
+}
+
+/**
+ * Runs the job-queue worker (scripts/worker.ts): it sends queued e-mail and runs scheduled jobs,
+ * apart from the web server so a slow mail server never holds up a request.
+ */
+export function startWorker(root, env, { stdio = 'inherit' } = {}) {
+  return spawn(process.execPath, ['--import', 'tsx', join(root, 'scripts', 'worker.ts')], {
+    cwd: root,
+    env: { ...process.env, ...env },
+    stdio,
+  });
 }
 
 export async function waitForServer(url, child, timeoutMs = 60_000) {

@@ -3,6 +3,7 @@
 import pg from 'pg';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import * as schema from '../../src/db/schema';
+import { dropDatabase } from '../../scripts/lib/postgres.mjs';
 
 let pool: pg.Pool | undefined;
 
@@ -34,7 +35,7 @@ export async function scratchDatabase(prefix: string) {
     async drop() {
       const client = new pg.Client({ connectionString: databaseUrlFor('postgres') });
       await client.connect();
-      await client.query(`drop database if exists "${name}" with (force)`);
+      await dropDatabase(client, name);
       await client.end();
     },
   };

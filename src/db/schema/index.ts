@@ -8,4 +8,7 @@ export * from './templates';
 export * from './visits';
 export * from './visit-records';
 export * from './sync';
+export * from './billing';
+export * from './messages';
+export * from './follow-up';
 export * from './van';
