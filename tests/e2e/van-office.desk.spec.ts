@@ -26,7 +26,7 @@ test.beforeEach(async ({ context, page }) => {
 });
 
 test('the office loads a van and sees the level and the movement that explains it', async ({ page }) => {
-  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Van stock' }).click();
+  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Vans' }).click();
   await page.getByRole('link', { name: `${org.technician.name}’s van` }).click();
   await expect(page.getByText('Nothing recorded in this van yet.')).toBeVisible();
 
@@ -55,7 +55,8 @@ test('the office loads a van and sees the level and the movement that explains i
 });
 
 test('the office downloads the order list as CSV', async ({ page }) => {
-  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Order list' }).click();
+  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Vans' }).click();
+  await page.getByRole('navigation', { name: 'Vans' }).getByRole('link', { name: 'Order list' }).click();
   await expect(page.getByRole('heading', { name: 'Sparks Test' })).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/office-order-list.png', fullPage: true });
   const downloading = page.waitForEvent('download');
@@ -65,7 +66,8 @@ test('the office downloads the order list as CSV', async ({ page }) => {
 });
 
 test('the office records a used-oil disposal', async ({ page }) => {
-  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Used oil' }).click();
+  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Vans' }).click();
+  await page.getByRole('navigation', { name: 'Vans' }).getByRole('link', { name: 'Used oil' }).click();
   await expect(page.getByText('Local waste rules apply')).toBeVisible();
   const form = page.getByRole('form', { name: 'Record a disposal' });
   await form.getByLabel('Licensed site').fill('Desk Test Site');

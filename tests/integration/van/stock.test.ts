@@ -132,7 +132,7 @@ describe('reading van stock', () => {
   });
 
   it('serves the office pages to the office and sends technicians away', async () => {
-    for (const path of [`/office/vans?technician=${org.technician.id}`, '/office/vans/load-list', '/office/order-list', '/office/used-oil', '/office/parts']) {
+    for (const path of [`/office/vans?technician=${org.technician.id}`, '/office/vans/load-list', '/office/vans/order-list', '/office/vans/used-oil', '/office/vans/parts']) {
       const response = await call(as.office!, path);
       expect(response.status, path).toBe(200);
       expect(await response.text()).not.toContain(other.technician.id);
