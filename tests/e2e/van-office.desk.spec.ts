@@ -76,3 +76,33 @@ test('the office records a used-oil disposal', async ({ page }) => {
   await expect(page.getByRole('cell', { name: 'Desk Test Site' })).toBeVisible();
   await page.screenshot({ path: 'test-results/screens/office-used-oil.png', fullPage: true });
 });
+
+test('the office adds an oil to the catalogue with its containers, and counts a van', async ({ page }) => {
+  await page.goto('/office/vans/parts');
+  const add = page.getByRole('form', { name: 'Add a part' });
+  await add.getByLabel('Part number').fill('T-15W40');
+  await add.getByLabel('Description').fill('Desk test oil');
+  await add.getByLabel('Kind').selectOption('oil');
+  await add.getByLabel('SAE grade').fill('15w40');
+  await add.getByLabel(/^Cost/).fill('5.10');
+  await add.getByLabel(/^Price/).fill('9.80');
+  await add.getByRole('button', { name: 'Add the part' }).click();
+  const row = page.getByRole('row', { name: /T-15W40/ });
+  await expect(row).toContainText('oil 15W-40');
+  await expect(row).toContainText('£5.10');
+
+  await row.getByRole('button', { name: 'Edit T-15W40' }).click();
+  const edit = page.getByRole('form', { name: 'Edit T-15W40' });
+  await edit.getByLabel('Containers (L)').fill('1, 5, 20');
+  await edit.getByRole('button', { name: 'Save' }).click();
+  await expect(page.getByRole('row', { name: /T-15W40/ })).toContainText('1 L, 5 L, 20 L');
+  await page.screenshot({ path: 'test-results/screens/office-parts.png', fullPage: true });
+
+  await page.goto(`/office/vans?technician=${org.otherTechnician.id}`);
+  const count = page.getByRole('form', { name: 'Stock count' });
+  await count.getByLabel('Part').selectOption({ label: 'T-15W40 · Desk test oil' });
+  await count.getByLabel('Counted').fill('3.5');
+  await count.getByRole('button', { name: 'Record the count' }).click();
+  await expect(page.getByTestId('stock-T-15W40')).toContainText('3.5 L');
+  await expect(page.locator('#movements')).toContainText('Stock count');
+});

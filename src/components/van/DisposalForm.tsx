@@ -1,6 +1,6 @@
 // The office records a trip to a licensed site with a van's used oil.
 import { useState, type FormEvent } from 'react';
-import { requestJson } from '../ui/request-json';
+import { FormError, useSend } from './use-send';
 
 type Props = { vans: { technicianId: string; technicianName: string; heldL: number }[] };
 
@@ -15,8 +15,7 @@ function nowForInput(): string {
 export default function DisposalForm({ vans }: Props) {
   const [technicianId, setTechnicianId] = useState(vans[0]?.technicianId ?? '');
   const [litres, setLitres] = useState(String(vans[0]?.heldL || ''));
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, send } = useSend();
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -26,9 +25,7 @@ export default function DisposalForm({ vans }: Props) {
       setError('Give the date and time, the licensed site and the litres (above zero).');
       return;
     }
-    setBusy(true);
-    setError(null);
-    const result = await requestJson('POST', '/api/office/used-oil/disposals', {
+    const saved = await send('POST', '/api/office/used-oil/disposals', {
       technicianId,
       // The browser's local time, sent as an instant.
       disposedAt: new Date(when).toISOString(),
@@ -37,12 +34,7 @@ export default function DisposalForm({ vans }: Props) {
       reference: String(form.get('reference') ?? ''),
       litres: Number(litres),
     });
-    setBusy(false);
-    if (!result.ok) {
-      setError(result.message);
-      return;
-    }
-    window.location.reload();
+    if (saved) window.location.reload();
   }
 
   return (
@@ -89,11 +81,7 @@ export default function DisposalForm({ vans }: Props) {
         </label>
       </div>
       <p className="text-sm">Prefilled with what the van collected since its last disposal; enter what the site measured.</p>
-      {error && (
-        <p role="alert" className="rounded border-2 border-sev-now p-2 font-bold text-sev-now">
-          {error}
-        </p>
-      )}
+      <FormError message={error} />
       <button type="submit" disabled={busy || vans.length === 0} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Saving…' : 'Record the disposal'}
       </button>

@@ -1,13 +1,12 @@
 // One van's minimum for one part, edited in place in the stock table.
 import { useState, type FormEvent } from 'react';
-import { requestJson } from '../ui/request-json';
+import { useSend } from './use-send';
 
 type Props = { technicianId: string; partId: string; partNumber: string; minimum: number | null };
 
 export default function MinimumCell({ technicianId, partId, partNumber, minimum }: Props) {
   const [value, setValue] = useState(minimum === null ? '' : String(minimum));
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, send } = useSend();
   const changed = value !== (minimum === null ? '' : String(minimum));
 
   async function onSubmit(event: FormEvent) {
@@ -16,18 +15,8 @@ export default function MinimumCell({ technicianId, partId, partNumber, minimum 
       setError('0 or more, or empty for none');
       return;
     }
-    setBusy(true);
-    const result = await requestJson('PUT', '/api/office/van-stock/minimums', {
-      technicianId,
-      partId,
-      minimum: value === '' ? null : Number(value),
-    });
-    setBusy(false);
-    if (!result.ok) {
-      setError(result.message);
-      return;
-    }
-    window.location.reload();
+    const saved = await send('PUT', '/api/office/van-stock/minimums', { technicianId, partId, minimum: value === '' ? null : Number(value) });
+    if (saved) window.location.reload();
   }
 
   return (

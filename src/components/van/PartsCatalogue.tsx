@@ -4,7 +4,7 @@ import { useState, type FormEvent } from 'react';
 import type { CataloguePart } from '../../lib/server/catalogue';
 import { formatMinorUnits } from '../../lib/money-format';
 import { formatMoney, minorDigits } from '../../lib/trade/money';
-import { requestJson } from '../ui/request-json';
+import { FormError, useSend } from './use-send';
 
 type Props = { parts: CataloguePart[]; kinds: readonly string[]; currency: string };
 
@@ -23,18 +23,9 @@ function sizesFrom(text: string): number[] | null {
   return sizes.every((s) => Number.isFinite(s) && s > 0) ? sizes : null;
 }
 
-function Message({ text }: { text: string | null }) {
-  return text ? (
-    <p role="alert" className="rounded border-2 border-sev-now p-2 font-bold text-sev-now">
-      {text}
-    </p>
-  ) : null;
-}
-
 function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: string }) {
   const [kind, setKind] = useState('oil_filter');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, send } = useSend();
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -46,8 +37,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
       setError('Give the cost and the price as amounts, e.g. 7.20.');
       return;
     }
-    setBusy(true);
-    const result = await requestJson('POST', '/api/office/parts', {
+    const created = await send('POST', '/api/office/parts', {
       partNumber: text('partNumber'),
       description: text('description'),
       kind,
@@ -57,9 +47,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
       priceMinor,
       supplier: text('supplier'),
     });
-    setBusy(false);
-    if (!result.ok) return setError(result.message);
-    window.location.reload();
+    if (created) window.location.reload();
   }
 
   return (
@@ -110,7 +98,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
         <input name="supplier" maxLength={120} className={input} />
       </label>
       <div className="col-span-3">
-        <Message text={error} />
+        <FormError message={error} />
       </div>
       <button type="submit" disabled={busy} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Adding…' : 'Add the part'}
@@ -120,8 +108,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
 }
 
 function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: string; onDone: () => void }) {
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, send } = useSend();
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -132,8 +119,7 @@ function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: st
     const sizes = part.kind === 'oil' ? sizesFrom(text('sizes')) : [];
     if (costMinor === null || priceMinor === null) return setError('Give the cost and the price as amounts, e.g. 7.20.');
     if (sizes === null) return setError('Give container sizes in litres, separated by commas, e.g. 1, 5.');
-    setBusy(true);
-    const saved = await requestJson('PATCH', `/api/office/parts/${part.id}`, {
+    const saved = await send('PATCH', `/api/office/parts/${part.id}`, {
       description: text('description'),
       costMinor,
       priceMinor,
@@ -141,10 +127,8 @@ function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: st
       active: form.get('active') === 'on',
       ...(part.kind === 'oil' ? { oilGrade: text('oilGrade') } : {}),
     });
-    const containers = saved.ok && part.kind === 'oil' ? await requestJson('PUT', `/api/office/parts/${part.id}/containers`, { sizesL: sizes }) : saved;
-    setBusy(false);
-    if (!saved.ok) return setError(saved.message);
-    if (!containers.ok) return setError(containers.message);
+    if (!saved) return;
+    if (part.kind === 'oil' && !(await send('PUT', `/api/office/parts/${part.id}/containers`, { sizesL: sizes }))) return;
     onDone();
     window.location.reload();
   }
@@ -186,7 +170,7 @@ function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: st
             Still stocked
           </label>
           <div className="col-span-3">
-            <Message text={error} />
+            <FormError message={error} />
           </div>
           <div className="col-span-2 flex justify-end gap-2">
             <button type="button" onClick={onDone} className="min-h-10 rounded border-2 border-ink px-4 font-bold">

@@ -1,6 +1,6 @@
 // The office loads a van from the store, or takes parts back: several lines, one submit.
 import { useState, type FormEvent } from 'react';
-import { requestJson } from '../ui/request-json';
+import { FormError, useSend } from './use-send';
 
 type PartOption = { id: string; partNumber: string; description: string; unit: string };
 type Props = { technicianId: string; technicianName: string; parts: PartOption[] };
@@ -12,8 +12,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
   const [lines, setLines] = useState<Line[]>([{ key: 0, partId: '', quantity: '' }]);
   const [reason, setReason] = useState<'restock' | 'returned'>('restock');
   const [note, setNote] = useState('');
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, send } = useSend();
   const unitOf = (partId: string) => parts.find((p) => p.id === partId)?.unit;
 
   const update = (key: number, change: Partial<Line>) => setLines((all) => all.map((l) => (l.key === key ? { ...l, ...change } : l)));
@@ -25,20 +24,13 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
       setError('Choose a part and a quantity above zero on every line.');
       return;
     }
-    setBusy(true);
-    setError(null);
-    const result = await requestJson('POST', '/api/office/van-stock/movements', {
+    const saved = await send('POST', '/api/office/van-stock/movements', {
       technicianId,
       reason,
       note,
       lines: filled.map((l) => ({ partId: l.partId, quantity: Number(l.quantity) })),
     });
-    setBusy(false);
-    if (!result.ok) {
-      setError(result.message);
-      return;
-    }
-    window.location.reload();
+    if (saved) window.location.reload();
   }
 
   return (
@@ -98,11 +90,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
         Note
         <input value={note} onChange={(e) => setNote(e.target.value)} maxLength={500} className={`${input} font-normal`} placeholder="e.g. Monday load" />
       </label>
-      {error && (
-        <p role="alert" className="rounded border-2 border-sev-now p-2 font-bold text-sev-now">
-          {error}
-        </p>
-      )}
+      <FormError message={error} />
       <button type="submit" disabled={busy} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Saving…' : reason === 'restock' ? 'Record the load' : 'Record the return'}
       </button>

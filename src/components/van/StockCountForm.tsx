@@ -1,6 +1,6 @@
 // A stock count: the office enters what is actually in the van; the difference is recorded.
 import { useState, type FormEvent } from 'react';
-import { requestJson } from '../ui/request-json';
+import { FormError, useSend } from './use-send';
 
 type PartOption = { id: string; partNumber: string; description: string; unit: string };
 type Props = { technicianId: string; parts: PartOption[] };
@@ -8,9 +8,8 @@ type Props = { technicianId: string; parts: PartOption[] };
 const input = 'min-h-10 rounded border-2 border-ink/50 bg-white px-2 font-normal';
 
 export default function StockCountForm({ technicianId, parts }: Props) {
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, setError, send } = useSend();
   const [done, setDone] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
 
   async function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -21,20 +20,14 @@ export default function StockCountForm({ technicianId, parts }: Props) {
       setError('Choose the part and enter the quantity counted (0 or more).');
       return;
     }
-    setBusy(true);
-    setError(null);
-    const result = await requestJson<{ difference: number }>('POST', '/api/office/van-stock/count', {
+    const result = await send<{ difference: number }>('POST', '/api/office/van-stock/count', {
       technicianId,
       partId,
       counted: Number(counted),
       note: String(form.get('note') ?? ''),
     });
-    setBusy(false);
-    if (!result.ok) {
-      setError(result.message);
-      return;
-    }
-    if (result.data.difference === 0) {
+    if (!result) return;
+    if (result.difference === 0) {
       setDone('The count agrees with the recorded level; nothing was changed.');
       return;
     }
@@ -65,11 +58,7 @@ export default function StockCountForm({ technicianId, parts }: Props) {
           <input name="note" maxLength={500} className={input} placeholder="e.g. Friday count" />
         </label>
       </div>
-      {error && (
-        <p role="alert" className="rounded border-2 border-sev-now p-2 font-bold text-sev-now">
-          {error}
-        </p>
-      )}
+      <FormError message={error} />
       {done && <p role="status">{done}</p>}
       <button type="submit" disabled={busy} className="min-h-11 rounded border-2 border-brand px-4 font-bold text-brand disabled:opacity-60">
         {busy ? 'Saving…' : 'Record the count'}
