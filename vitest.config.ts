@@ -22,6 +22,20 @@ export default defineConfig({
           hookTimeout: 60_000,
         },
       },
+      {
+        // Tests that kill a server process or crash a (private) PostgreSQL cluster. They start
+        // their own processes, and run after the other projects so they do not compete for CPU.
+        extends: true,
+        test: {
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          setupFiles: ['tests/support/require-test-env.ts'],
+          testTimeout: 120_000,
+          hookTimeout: 120_000,
+          sequence: { groupOrder: 1 },
+        },
+      },
     ],
   },
 });

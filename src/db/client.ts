@@ -21,12 +21,17 @@ export function databaseUrl(): string {
 }
 
 export function getPool(): pg.Pool {
-  pool ??= new pg.Pool({
-    connectionString: databaseUrl(),
-    max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
-    // A stuck query must not hold a device's push for ever.
-    statement_timeout: 30_000,
-  });
+  if (!pool) {
+    pool = new pg.Pool({
+      connectionString: databaseUrl(),
+      max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
+      // A stuck query must not hold a device's push for ever.
+      statement_timeout: 30_000,
+    });
+    // An idle connection dropped by a database restart must not take the server down; the pool
+    // discards it and the next request opens a fresh one.
+    pool.on('error', (error) => console.error(`[db] an idle connection was lost: ${error.message}`));
+  }
   return pool;
 }
 

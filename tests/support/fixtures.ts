@@ -17,8 +17,7 @@ export type OrganisationFixture = {
   otherTechnician: Person;
 };
 
-export async function createOrganisation(label = 'Test'): Promise<OrganisationFixture> {
-  const db = testDb();
+export async function createOrganisation(label = 'Test', db = testDb()): Promise<OrganisationFixture> {
   const organisationId = randomUUID();
   const tag = organisationId.slice(0, 8);
   await db.insert(s.organisations).values({ id: organisationId, name: `${label} Servicing ${tag}`, slug: `test-${tag}` });

@@ -30,7 +30,10 @@ export async function call(session: Session | null, path: string, options: Reque
     headers['x-forwarded-for'] = session.address;
   }
   let body: BodyInit | undefined;
-  if (options.body !== undefined) {
+  if (options.body instanceof Uint8Array) {
+    // Bytes (a photo upload) go as they are; the caller sets their content-type.
+    body = options.body as Uint8Array<ArrayBuffer>;
+  } else if (options.body !== undefined) {
     body = typeof options.body === 'string' ? options.body : JSON.stringify(options.body);
     headers['content-type'] ??= 'application/json';
   }

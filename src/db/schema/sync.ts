@@ -1,12 +1,13 @@
 // Every operation a device pushed, whatever became of it (idempotency and audit), and the
 // conflict list the office works through.
 import { sql } from 'drizzle-orm';
-import { check, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { check, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { organisations } from './organisations';
 import { visits } from './visits';
 import { changeSeqColumn } from './change-feed';
 
 import { OUTCOMES as OP_OUTCOMES, type Outcome as OpOutcome } from '../../lib/sync/operations';
+import { CONFLICT_REASONS } from '../../lib/sync/apply-operation';
 
 export { OP_OUTCOMES, type OpOutcome };
 
@@ -24,7 +25,11 @@ export const syncOperations = pgTable(
     deviceId: text('device_id').notNull(),
     kind: text('kind').notNull(),
     entityId: text('entity_id').notNull(),
+    // As the device sent it; `effective_stamp` is what it merged with when the server bounded
+    // a stamp from a clock running ahead (lib/sync/stamp-bound), null when it was not bounded.
     stamp: text('stamp').notNull(),
+    effectiveStamp: text('effective_stamp'),
+    // Translated to the server's stamp when it named the device's own bounded operation.
     seenStamp: text('seen_stamp'),
     payload: jsonb('payload').notNull(),
     outcome: text('outcome', { enum: OP_OUTCOMES }).notNull(),
@@ -33,6 +38,8 @@ export const syncOperations = pgTable(
   },
   (t) => [
     index('sync_operations_visit_idx').on(t.visitId, t.receivedAt),
+    index('sync_operations_entity_idx').on(t.visitId, t.entityId),
+    index('sync_operations_device_stamp_idx').on(t.organisationId, t.deviceId, t.stamp),
     check(
       'sync_operations_outcome_check',
       sql`${t.outcome} in ('applied', 'duplicate', 'superseded', 'conflict', 'locked', 'rejected')`,
@@ -40,7 +47,7 @@ export const syncOperations = pgTable(
   ],
 );
 
-export const CONFLICT_REASONS = ['concurrent_edit', 'visit_locked'] as const;
+export { CONFLICT_REASONS };
 
 export const conflicts = pgTable(
   'conflicts',
@@ -72,3 +79,30 @@ export const conflicts = pgTable(
     index('conflicts_visit_idx').on(t.visitId),
   ],
 );
+
+/** Per device: the last stamp the server bounded for it, so its bounded stamps keep their order. */
+export const syncDevices = pgTable(
+  'sync_devices',
+  {
+    organisationId: uuid('organisation_id')
+      .notNull()
+      .references(() => organisations.id, { onDelete: 'cascade' }),
+    deviceId: text('device_id').notNull(),
+    userId: text('user_id').notNull(),
+    lastBoundedStamp: text('last_bounded_stamp'),
+    boundedCount: integer('bounded_count').notNull().default(0),
+    lastPushAt: timestamp('last_push_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.organisationId, t.deviceId] })],
+);
+
+/**
+ * The server's hybrid logical clock, one per organisation: it moves on every operation received
+ * and stamps the office's own changes, so they order after everything the server has accepted.
+ */
+export const syncClocks = pgTable('sync_clocks', {
+  organisationId: uuid('organisation_id')
+    .primaryKey()
+    .references(() => organisations.id, { onDelete: 'cascade' }),
+  stamp: text('stamp').notNull(),
+});

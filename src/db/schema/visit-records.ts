@@ -8,6 +8,7 @@ import {
   doublePrecision,
   index,
   integer,
+  jsonb,
   pgTable,
   primaryKey,
   text,
@@ -16,6 +17,7 @@ import {
   uuid,
 } from 'drizzle-orm/pg-core';
 import { user } from './auth';
+import { organisations } from './organisations';
 import { visits } from './visits';
 import { templateItems } from './templates';
 import { parts } from './catalogue';
@@ -23,6 +25,7 @@ import { DISTANCE_UNITS } from './organisations';
 import { changeSeqColumn } from './change-feed';
 
 import { CHECK_STATES, SEVERITIES, type Severity } from '../../lib/sync/operations';
+import type { SeverityLog } from '../../lib/sync/severity-log';
 
 export { CHECK_STATES, SEVERITIES, type Severity };
 export type CheckState = (typeof CHECK_STATES)[number];
@@ -86,6 +89,9 @@ export const findings = pgTable(
     detail: text('detail').notNull().default(''),
     severity: text('severity', { enum: SEVERITIES }).notNull(),
     severityStamp: text('severity_stamp').notNull(),
+    // What the severity merge needs to stay order-independent (lib/sync/severity-log); null on
+    // rows written before it existed, read as a single event (severity, severity_stamp).
+    severityLog: jsonb('severity_log').$type<SeverityLog>(),
     // Stamp of the latest change to the fields other than severity (later stamp wins).
     stamp: text('stamp').notNull(),
     createdBy: text('created_by').notNull(),
@@ -203,5 +209,31 @@ export const signOffs = pgTable(
     uniqueIndex('sign_offs_one_live_per_visit').on(t.visitId).where(sql`${t.voidedAt} is null`),
     index('sign_offs_change_seq_idx').on(t.changeSeq),
     check('sign_offs_odometer_check', sql`${t.odometer} >= 0`),
+  ],
+);
+
+/**
+ * Photo bytes the server holds, per organisation, by SHA-256 (the object key derives from it, so
+ * a repeated upload is a no-op). A photo.add operation may name only a stored object.
+ */
+export const photoObjects = pgTable(
+  'photo_objects',
+  {
+    organisationId: uuid('organisation_id')
+      .notNull()
+      .references(() => organisations.id, { onDelete: 'cascade' }),
+    sha256: text('sha256').notNull(),
+    objectKey: text('object_key').notNull(),
+    thumbnailKey: text('thumbnail_key').notNull(),
+    contentType: text('content_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    uploadedBy: text('uploaded_by').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    primaryKey({ columns: [t.organisationId, t.sha256] }),
+    check('photo_objects_sha256_check', sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),
   ],
 );

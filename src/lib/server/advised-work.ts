@@ -3,6 +3,7 @@
 import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import * as s from '../../db/schema';
+import { lockChangeFeed } from './change-feed';
 import { HttpError } from './http';
 import { resolveRecordToken } from './record-links';
 import { localInstant } from './local-date';
@@ -95,6 +96,8 @@ export async function bookAdvisedWork(organisationId: string, advisedId: string,
       .select({ value: count() })
       .from(s.visits)
       .where(and(eq(s.visits.technicianId, booking.technicianId), eq(s.visits.roundDate, booking.date)))) as [{ value: number }];
+    // A new visit on a technician's round: write it as a change-feed writer (change-feed.ts).
+    await lockChangeFeed(tx, organisationId);
     const [visit] = await tx
       .insert(s.visits)
       .values({

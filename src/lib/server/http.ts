@@ -75,8 +75,7 @@ export async function readJson<T>(request: Request, schema: ZodType<T>, maxBytes
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'Send the body as JSON (content-type: application/json).');
   }
-  const text = await request.text();
-  if (text.length > maxBytes) throw new HttpError(413, `The body is larger than ${maxBytes} bytes.`);
+  const text = new TextDecoder().decode(await readBodyBytes(request, maxBytes));
   let data: unknown;
   try {
     data = JSON.parse(text);
@@ -84,6 +83,33 @@ export async function readJson<T>(request: Request, schema: ZodType<T>, maxBytes
     throw new HttpError(400, 'The body is not valid JSON.');
   }
   return schema.parse(data);
+}
+
+/** Reads the body, stopping with a 413 as soon as it passes `maxBytes` (before holding it all). */
+export async function readBodyBytes(request: Request, maxBytes: number): Promise<Uint8Array> {
+  const tooLarge = () => new HttpError(413, `The body is larger than ${maxBytes} bytes.`);
+  if (Number(request.headers.get('content-length') ?? 0) > maxBytes) throw tooLarge();
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(size);
+  let offset = 0;
+  for (const chunk of chunks) {
+    bytes.set(chunk, offset);
+    offset += chunk.byteLength;
+  }
+  return bytes;
 }
 
 /** Parses URL search parameters with a zod schema. */

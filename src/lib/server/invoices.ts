@@ -17,6 +17,7 @@ import { queueMessage } from './mail/outbox';
 import { invoiceMail } from './mail/templates';
 import { dayLabel, localDate } from './local-date';
 import { nextChangeSeq } from '../../db/schema/change-feed';
+import { lockChangeFeed } from './change-feed';
 
 export type DraftLine = {
   kind: s.InvoiceLineKind;
@@ -156,6 +157,8 @@ export async function sendInvoice(organisationId: string, invoiceId: string, use
     const issuedAt = new Date();
     const dueAt = addDays(issuedAt, invoicePaymentDays());
     await db.update(s.invoices).set({ number, status: 'sent', issuedAt, dueAt, updatedAt: sql`now()` }).where(eq(s.invoices.id, invoiceId));
+    // Devices pull the visit's status: write it as a change-feed writer (change-feed.ts).
+    await lockChangeFeed(db, organisationId);
     await db.update(s.visits).set({ status: 'invoiced', updatedAt: sql`now()`, changeSeq: nextChangeSeq }).where(eq(s.visits.id, invoice.visitId));
     const [customer] = await db.select().from(s.customers).where(eq(s.customers.id, invoice.customerId));
     const [vehicle] = await db
@@ -216,6 +219,7 @@ export async function creditInvoice(organisationId: string, invoiceId: string, r
       .set({ status: 'expired' })
       .where(and(eq(s.paymentAttempts.invoiceId, invoiceId), eq(s.paymentAttempts.status, 'open')));
     const [visit] = await tx.select({ reviewedAt: s.visits.reviewedAt }).from(s.visits).where(eq(s.visits.id, invoice.visitId));
+    await lockChangeFeed(tx, organisationId);
     await tx
       .update(s.visits)
       .set({ status: visit?.reviewedAt ? 'reviewed' : 'signed_off', updatedAt: sql`now()`, changeSeq: nextChangeSeq })

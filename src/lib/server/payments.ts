@@ -8,6 +8,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import { getDb, type Database } from '../../db/client';
 import * as s from '../../db/schema';
 import { nextChangeSeq } from '../../db/schema/change-feed';
+import { lockChangeFeed } from './change-feed';
 import { formatDocumentNumber } from '../billing/document-numbers';
 import { formatMoney } from '../billing/money';
 import { stripeSettings } from './follow-up-config';
@@ -134,6 +135,8 @@ export async function handleStripeWebhook(rawBody: string, signatureHeader: stri
       method: 'card',
       providerReference: typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? session.id),
     });
+    // Devices pull the visit's status: write it as a change-feed writer (change-feed.ts).
+    await lockChangeFeed(db, invoice.organisationId);
     await db.update(s.visits).set({ status: 'paid', updatedAt: sql`now()`, changeSeq: nextChangeSeq }).where(eq(s.visits.id, invoice.visitId));
     await queuePaymentReceived(db, enqueue, invoice, paidAt);
     return record('paid', invoice.organisationId);

@@ -22,7 +22,7 @@ const checkPayload = z.object({ itemId: id, state: z.enum(CHECK_STATES) });
 const readingPayload = z
   .object({
     itemId: id,
-    value: z.number().finite().min(-READING_LIMIT).max(READING_LIMIT).nullable(),
+    value: z.number().min(-READING_LIMIT).max(READING_LIMIT).nullable(),
     textValue: text(40).min(1).nullable(),
     unit: text(32).min(1),
   })
@@ -60,7 +60,7 @@ const partLinePayload = z.object({
   partId: id.nullable(),
   partNumber: text(60).min(1),
   description: text(200),
-  quantity: z.number().finite().positive().max(1000),
+  quantity: z.number().positive().max(1000),
   unit: text(32).min(1),
   removed: z.boolean(),
 });

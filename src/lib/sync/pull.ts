@@ -113,6 +113,13 @@ export const pulledReadingResult = z.object({
   unit: z.string().nullable(),
   stamp,
 });
+const severityEvent = z.object({ stamp, severity: z.enum(SEVERITIES), opId: z.string().nullable(), author: z.string().nullable().optional() });
+/** What the device needs to merge its own pending severity changes the way the server will (severity-log.ts). */
+export const pulledSeverityLog = z.object({
+  reset: severityEvent.extend({ seenStamp: stamp.nullable() }).nullable(),
+  raises: z.array(severityEvent),
+});
+
 export const pulledFinding = z.object({
   id,
   visitId: id,
@@ -122,6 +129,7 @@ export const pulledFinding = z.object({
   severity: z.enum(SEVERITIES),
   severityStamp: stamp,
   stamp,
+  severityLog: pulledSeverityLog.optional(),
 });
 export const pulledNote = z.object({ id, visitId: id, body: z.string(), authorId: userId, stamp });
 export const pulledPhoto = z.object({
