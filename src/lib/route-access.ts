@@ -14,6 +14,9 @@ const PUBLIC_API_PREFIXES = ['/api/auth/', '/api/public/', '/api/health'];
 
 export const TECHNICIAN_ROLES = ['technician'] as const satisfies readonly UserRole[];
 export const OFFICE_PAGE_ROLES = ['office', 'owner'] as const satisfies readonly UserRole[];
+export const OWNER_PAGE_ROLES = ['owner'] as const satisfies readonly UserRole[];
+// People and business settings are the owner's alone (PRODUCT.md, roles).
+const OWNER_PAGES = ['/office/people', '/office/settings'];
 
 export function pageAccess(pathname: string): PageAccess {
   if (pathname.startsWith('/api/')) {
@@ -21,6 +24,7 @@ export function pageAccess(pathname: string): PageAccess {
   }
   if (PUBLIC_FILES.has(pathname) || PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return { kind: 'public' };
   if (pathname.startsWith('/workbox-')) return { kind: 'public' };
+  if (OWNER_PAGES.some((p) => pathname === p || pathname.startsWith(`${p}/`))) return { kind: 'roles', roles: OWNER_PAGE_ROLES };
   if (pathname === '/office' || pathname.startsWith('/office/')) return { kind: 'roles', roles: OFFICE_PAGE_ROLES };
   return { kind: 'roles', roles: TECHNICIAN_ROLES };
 }

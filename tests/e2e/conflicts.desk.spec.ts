@@ -48,7 +48,7 @@ test('the office sees both values of a conflict and settles it', async ({ browse
   expect(lowered.ok()).toBe(true);
   await push(late, [late.finding(visitId, findingId, 'now', { title: 'Rear brake hose perished', seen: created.stamp })]);
 
-  await page.getByRole('link', { name: 'Conflicts' }).click();
+  await page.getByRole('navigation', { name: 'Office' }).getByRole('link', { name: 'Conflicts' }).click();
   await expect(page.getByText('3 conflicts')).toBeVisible();
   const severity = page.locator('li[data-conflict]').filter({ hasText: 'Finding: Rear brake hose perished' });
   await expect(severity.getByText('Needs doing now')).toBeVisible();

@@ -23,6 +23,12 @@ describe('page access', () => {
     expect(pageAccess('/office/visits/123')).toEqual({ kind: 'roles', roles: ['office', 'owner'] });
   });
 
+  it('keeps people and business settings to the owner', () => {
+    expect(pageAccess('/office/people')).toEqual({ kind: 'roles', roles: ['owner'] });
+    expect(pageAccess('/office/settings')).toEqual({ kind: 'roles', roles: ['owner'] });
+    expect(pageAccess('/office/peoplehood')).toEqual({ kind: 'roles', roles: ['office', 'owner'] });
+  });
+
   it('gives the round to technicians', () => {
     expect(pageAccess('/round')).toEqual({ kind: 'roles', roles: ['technician'] });
   });

@@ -17,7 +17,7 @@ export default function SignOutButton({ variant = 'light' }: { variant?: 'light'
       disabled={busy}
       className={
         variant === 'dark'
-          ? 'min-h-12 rounded border border-white/40 px-4 font-bold text-white hover:bg-white/10'
+          ? 'min-h-12 rounded border border-white/40 px-4 font-bold whitespace-nowrap text-white hover:bg-white/10'
           : 'min-h-12 rounded border-2 border-ink px-4 font-bold'
       }
     >

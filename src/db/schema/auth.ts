@@ -5,7 +5,9 @@ import { sql } from 'drizzle-orm';
 import { bigint, boolean, check, index, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { organisations } from './organisations';
 
-export const USER_ROLES = ['owner', 'office', 'technician'] as const;
+import { USER_ROLES } from '../../lib/words';
+
+export { USER_ROLES };
 export type UserRole = (typeof USER_ROLES)[number];
 
 export const user = pgTable(

@@ -5,22 +5,10 @@ import { boolean, check, index, integer, pgTable, text, timestamp, unique, uuid 
 import { organisations } from './organisations';
 import { changeSeqColumn } from './change-feed';
 
-export const PART_KINDS = [
-  'oil',
-  'oil_filter',
-  'air_filter',
-  'cabin_filter',
-  'fuel_filter',
-  'spark_plug',
-  'wiper',
-  'bulb',
-  'grease',
-  'sundries',
-] as const;
-export type PartKind = (typeof PART_KINDS)[number];
+import { PART_KINDS, PART_UNITS } from '../../lib/words';
 
-// UCUM codes: litres for bulk fluids, {each} (an annotation of unity) for counted parts.
-export const PART_UNITS = ['L', '{each}'] as const;
+export { PART_KINDS, PART_UNITS };
+export type PartKind = (typeof PART_KINDS)[number];
 
 export const parts = pgTable(
   'parts',

@@ -2,7 +2,9 @@
 import { sql } from 'drizzle-orm';
 import { check, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
-export const DISTANCE_UNITS = ['km', '[mi_i]'] as const;
+import { DISTANCE_UNITS } from '../../lib/words';
+
+export { DISTANCE_UNITS };
 export type DistanceUnit = (typeof DISTANCE_UNITS)[number];
 
 export const organisations = pgTable(

@@ -16,10 +16,10 @@ import { organisations } from './organisations';
 import { PART_KINDS } from './catalogue';
 import { changeSeqColumn } from './change-feed';
 
-export const ITEM_KINDS = ['check', 'reading', 'part'] as const;
-export type ItemKind = (typeof ITEM_KINDS)[number];
+import { ITEM_KINDS, TEMPLATE_VERSION_STATUSES } from '../../lib/words';
 
-export const TEMPLATE_VERSION_STATUSES = ['draft', 'published', 'retired'] as const;
+export { ITEM_KINDS, TEMPLATE_VERSION_STATUSES };
+export type ItemKind = (typeof ITEM_KINDS)[number];
 
 export const checklistTemplates = pgTable(
   'checklist_templates',

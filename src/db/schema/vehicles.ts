@@ -17,9 +17,9 @@ import { customers } from './customers';
 import { parts } from './catalogue';
 import { changeSeqColumn } from './change-feed';
 
-export const FUEL_TYPES = ['petrol', 'diesel', 'hybrid', 'electric', 'lpg'] as const;
-export const PLUG_SEATS = ['flat', 'taper'] as const;
-export const BRAKE_FLUID_GRADES = ['DOT 3', 'DOT 4', 'DOT 5', 'DOT 5.1'] as const;
+import { BRAKE_FLUID_GRADES, FUEL_TYPES, PLUG_SEATS } from '../../lib/words';
+
+export { BRAKE_FLUID_GRADES, FUEL_TYPES, PLUG_SEATS };
 
 export const vehicles = pgTable(
   'vehicles',

@@ -9,15 +9,9 @@ import { vehicles } from './vehicles';
 import { templateVersions } from './templates';
 import { changeSeqColumn } from './change-feed';
 
-export const VISIT_STATUSES = [
-  'booked',
-  'in_progress',
-  'signed_off',
-  'reviewed',
-  'invoiced',
-  'paid',
-  'cancelled',
-] as const;
+import { VISIT_STATUSES } from '../../lib/words';
+
+export { VISIT_STATUSES };
 export type VisitStatus = (typeof VISIT_STATUSES)[number];
 
 export const visits = pgTable(
@@ -59,6 +53,10 @@ export const visits = pgTable(
     index('visits_org_status_idx').on(t.organisationId, t.status, t.roundDate),
     index('visits_org_date_idx').on(t.organisationId, t.roundDate),
     index('visits_vehicle_idx').on(t.vehicleId, t.roundDate),
+    // The customers table's "last visit" and a customer's history.
+    index('visits_customer_idx').on(t.customerId, t.roundDate),
+    // The visits table, newest first, a page at a time.
+    index('visits_org_slot_idx').on(t.organisationId, t.slotStart),
     index('visits_change_seq_idx').on(t.changeSeq),
     check('visits_slot_check', sql`${t.slotStart} < ${t.slotEnd}`),
     check(

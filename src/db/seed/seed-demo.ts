@@ -9,7 +9,11 @@ import * as s from '../schema';
 import { encodeStamp } from '../../lib/sync/clock';
 import { reconcileVanStockForVisit } from '../../lib/server/van-stock-reconcile';
 import { normaliseRegistration } from '../../lib/trade/registration';
-import { ANNUAL_SERVICE, INTERIM_SERVICE, type ChecklistSeed } from './checklists';
+import { clockTime } from '../../lib/office/form-values';
+import { localInstant } from '../../lib/office/local-time';
+import { templateContentInput } from '../../lib/office/template-input';
+import { insertTemplate, publishVersion, writeDraftContent } from '../../lib/server/templates';
+import { ANNUAL_SERVICE, INTERIM_SERVICE, type ChecklistItemSeed, type ChecklistSeed } from './checklists';
 import { seedId } from './ids';
 import {
   CHECKLIST_FOR_VEHICLE,
@@ -145,59 +149,55 @@ type ItemRow = { id: string; key: string; kind: s.ItemKind; unit: string | null;
 async function seedChecklist(tx: Executor, organisationId: string, checklist: ChecklistSeed, publishedBy: string) {
   const templateId = seedId('template', checklist.key);
   const versionId = seedId('template-version', checklist.key, 1);
-  await tx
-    .insert(s.checklistTemplates)
-    .values({
-      id: templateId,
-      organisationId,
-      name: checklist.name,
-      description: checklist.description,
-      labourCentiHours: checklist.labourCentiHours,
-    })
-    .onConflictDoNothing();
-  await tx
-    .insert(s.templateVersions)
-    .values({
-      id: versionId,
-      templateId,
-      organisationId,
-      version: 1,
-      status: 'published',
-      publishedAt: new Date('2026-01-05T09:00:00Z'),
-      publishedBy,
-    })
-    .onConflictDoNothing();
-  const rows: ItemRow[] = [];
-  for (const [sectionIndex, section] of checklist.sections.entries()) {
-    const sectionId = seedId('section', checklist.key, sectionIndex);
-    await tx
-      .insert(s.templateSections)
-      .values({ id: sectionId, versionId, position: sectionIndex, title: section.title })
-      .onConflictDoNothing();
-    for (const [itemIndex, item] of section.items.entries()) {
-      const id = seedId('item', checklist.key, item.key);
-      await tx
-        .insert(s.templateItems)
-        .values({
-          id,
-          versionId,
-          sectionId,
-          position: itemIndex,
-          kind: item.kind,
-          label: item.label,
-          unit: item.unit ?? null,
-          expectedMin: item.expectedMin ?? null,
-          expectedMax: item.expectedMax ?? null,
-          rule: item.rule ?? null,
-          partKind: item.partKind ?? null,
-          caution: item.caution ?? null,
-          hint: item.hint ?? null,
-        })
-        .onConflictDoNothing();
-      rows.push({ id, key: item.key, kind: item.kind, unit: item.unit ?? null, rule: item.rule ?? null, partKind: item.partKind ?? null });
-    }
+  // The editor's own rules check the demo checklists too.
+  const content = templateContentInput.parse({
+    sections: checklist.sections.map((section) => ({ title: section.title, items: section.items.map(itemInputOf) })),
+  });
+  const [existing] = await tx
+    .select({ id: s.checklistTemplates.id })
+    .from(s.checklistTemplates)
+    .where(eq(s.checklistTemplates.id, templateId));
+  if (!existing) {
+    const { name, description, labourCentiHours } = checklist;
+    await insertTemplate(tx, organisationId, { name, description, labourCentiHours }, { templateId, versionId });
+    await writeDraftContent(tx, organisationId, versionId, {
+      sections: content.sections.map((section, sectionIndex) => ({
+        id: seedId('section', checklist.key, sectionIndex),
+        title: section.title,
+        items: section.items.map((item, itemIndex) => ({
+          ...item,
+          id: seedId('item', checklist.key, checklist.sections[sectionIndex]!.items[itemIndex]!.key),
+        })),
+      })),
+    });
+    await publishVersion(tx, organisationId, versionId, publishedBy, new Date('2026-01-05T09:00:00Z'));
   }
-  return rows;
+  return checklist.sections.flatMap((section) =>
+    section.items.map(
+      (item): ItemRow => ({
+        id: seedId('item', checklist.key, item.key),
+        key: item.key,
+        kind: item.kind,
+        unit: item.unit ?? null,
+        rule: item.rule ?? null,
+        partKind: item.partKind ?? null,
+      }),
+    ),
+  );
+}
+
+function itemInputOf(item: ChecklistItemSeed) {
+  return {
+    kind: item.kind,
+    label: item.label,
+    unit: item.unit ?? null,
+    expectedMin: item.expectedMin ?? null,
+    expectedMax: item.expectedMax ?? null,
+    rule: item.rule ?? null,
+    partKind: item.partKind ?? null,
+    caution: item.caution ?? null,
+    hint: item.hint ?? null,
+  };
 }
 
 // The week: three working days back, today, and two ahead. Sundays are rest days.
@@ -230,12 +230,6 @@ export function workingDay(today: Date, offset: number, timeZone: string): strin
   return format(day, 'yyyy-MM-dd');
 }
 
-function localInstant(date: string, time: string, timeZone: string): Date {
-  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
-  const [hh, mm] = time.split(':').map(Number) as [number, number];
-  return new Date(new TZDate(y, m - 1, d, hh, mm, timeZone).getTime());
-}
-
 async function seedWeek(
   tx: Executor,
   organisationId: string,
@@ -255,7 +249,7 @@ async function seedWeek(
     const roundKey = `${plan.tech}:${roundDate}`;
     const position = positions.get(roundKey) ?? 0;
     positions.set(roundKey, position + 1);
-    const slotStart = localInstant(roundDate, plan.start, tz);
+    const slotStart = localInstant(roundDate, clockTime.parse(plan.start), tz);
     const slotEnd = new Date(slotStart.getTime() + plan.hours * 3_600_000);
     const visitId = seedId('visit', roundDate, plan.tech, plan.vehicle);
     const done = plan.day < 0;

@@ -1,0 +1,2 @@
+CREATE INDEX "visits_customer_idx" ON "visits" USING btree ("customer_id","round_date");--> statement-breakpoint
+CREATE INDEX "visits_org_slot_idx" ON "visits" USING btree ("organisation_id","slot_start");
