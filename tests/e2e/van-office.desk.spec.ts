@@ -4,7 +4,7 @@ import { expect, test } from '@playwright/test';
 import { newClientAddress } from '../support/client-address';
 import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../support/fixtures';
 import { bookVisit, createVanFixture, type VanFixture } from '../support/van-fixtures';
-import { addBusinessDays } from '../../src/lib/server/business-day';
+import { shiftDate } from '../../src/lib/office/local-time';
 
 let org: OrganisationFixture;
 let van: VanFixture;
@@ -12,7 +12,7 @@ let van: VanFixture;
 test.beforeAll(async () => {
   org = await createOrganisation('Desk');
   van = await createVanFixture(org);
-  const tomorrow = addBusinessDays(new Date().toISOString().slice(0, 10), 1);
+  const tomorrow = shiftDate(new Date().toISOString().slice(0, 10), 1);
   await bookVisit(org, van, { technicianId: org.technician.id, vehicleId: van.vehicles.petrol, roundDate: tomorrow });
 });
 

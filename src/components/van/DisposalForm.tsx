@@ -1,6 +1,7 @@
 // The office records a trip to a licensed site with a van's used oil.
 import { useState, type FormEvent } from 'react';
-import { FormError, useSend } from './use-send';
+import { useSend } from './use-send';
+import { FormMessage } from '../office/form';
 
 type Props = { vans: { technicianId: string; technicianName: string; heldL: number }[] };
 
@@ -81,7 +82,7 @@ export default function DisposalForm({ vans }: Props) {
         </label>
       </div>
       <p className="text-sm">Prefilled with what the van collected since its last disposal; enter what the site measured.</p>
-      <FormError message={error} />
+      <FormMessage message={error} />
       <button type="submit" disabled={busy || vans.length === 0} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Saving…' : 'Record the disposal'}
       </button>

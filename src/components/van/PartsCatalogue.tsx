@@ -2,9 +2,11 @@
 // and set the container sizes each oil comes in.
 import { useState, type FormEvent } from 'react';
 import type { CataloguePart } from '../../lib/server/catalogue';
-import { formatMinorUnits } from '../../lib/money-format';
-import { formatMoney, minorDigits } from '../../lib/trade/money';
-import { FormError, useSend } from './use-send';
+import { formatMoney } from '../../lib/trade/money';
+import { parseMoney } from '../../lib/billing/money';
+import { formatMajorAmount } from '../../lib/office/money-input';
+import { useSend } from './use-send';
+import { FormMessage } from '../office/form';
 
 type Props = { parts: CataloguePart[]; kinds: readonly string[]; currency: string };
 
@@ -12,11 +14,7 @@ const input = 'min-h-10 w-full rounded border-2 border-ink/50 bg-white px-2 font
 const kindLabel = (kind: string) => kind.replace('_', ' ');
 
 /** "7.20" → 720 in a two-digit currency; null when it is not an amount. */
-function toMinor(text: string, currency: string): number | null {
-  const value = Number(text.trim());
-  if (text.trim() === '' || !Number.isFinite(value) || value < 0) return null;
-  return Math.round(value * 10 ** minorDigits(currency));
-}
+const toMinor = (text: string, currency: string) => parseMoney(text, currency) ?? null;
 
 function sizesFrom(text: string): number[] | null {
   const sizes = text.split(/[,\s]+/).filter(Boolean).map(Number);
@@ -98,7 +96,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
         <input name="supplier" maxLength={120} className={input} />
       </label>
       <div className="col-span-3">
-        <FormError message={error} />
+        <FormMessage message={error} />
       </div>
       <button type="submit" disabled={busy} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Adding…' : 'Add the part'}
@@ -149,11 +147,11 @@ function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: st
           )}
           <label className="flex flex-col text-sm font-bold">
             Cost ({currency})
-            <input name="cost" inputMode="decimal" defaultValue={formatMinorUnits(part.costMinor, currency)} className={input} />
+            <input name="cost" inputMode="decimal" defaultValue={formatMajorAmount(part.costMinor, currency)} className={input} />
           </label>
           <label className="flex flex-col text-sm font-bold">
             Price ({currency})
-            <input name="price" inputMode="decimal" defaultValue={formatMinorUnits(part.priceMinor, currency)} className={input} />
+            <input name="price" inputMode="decimal" defaultValue={formatMajorAmount(part.priceMinor, currency)} className={input} />
           </label>
           <label className="flex flex-col text-sm font-bold">
             Supplier
@@ -170,7 +168,7 @@ function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: st
             Still stocked
           </label>
           <div className="col-span-3">
-            <FormError message={error} />
+            <FormMessage message={error} />
           </div>
           <div className="col-span-2 flex justify-end gap-2">
             <button type="button" onClick={onDone} className="min-h-10 rounded border-2 border-ink px-4 font-bold">

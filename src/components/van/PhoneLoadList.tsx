@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useState } from 'react';
 import { get, set } from 'idb-keyval';
 import type { RoundLoadList } from '../../lib/server/load-list';
-import { requestJson } from '../ui/request-json';
+import { api, ApiError } from '../office/api';
 import LoadListSheet from './LoadListSheet';
 import { formatTime } from './format';
 
@@ -29,16 +29,17 @@ export default function PhoneLoadList() {
 
   const refresh = useCallback(async () => {
     setBusy(true);
-    const result = await requestJson<RoundLoadList>('GET', `/api/van/load-list?date=${date}`);
-    setBusy(false);
-    if (result.ok) {
-      const fresh = { list: result.data, savedAt: new Date().toISOString() };
+    try {
+      const fresh = { list: await api<RoundLoadList>('/api/van/load-list', { query: { date } }), savedAt: new Date().toISOString() };
       setSaved(fresh);
       setMessage(null);
       await set(cacheKey(date), fresh).catch(() => undefined);
-    } else {
-      setMessage(result.status === 0 ? 'No signal: showing the copy saved on this phone.' : result.message);
-      setSignedOut(result.status === 401);
+    } catch (failure) {
+      const status = failure instanceof ApiError ? failure.status : -1;
+      setMessage(status === 0 ? 'No signal: showing the copy saved on this phone.' : (failure as Error).message);
+      setSignedOut(status === 401);
+    } finally {
+      setBusy(false);
     }
   }, [date]);
 

@@ -1,6 +1,7 @@
 // The office loads a van from the store, or takes parts back: several lines, one submit.
 import { useState, type FormEvent } from 'react';
-import { FormError, useSend } from './use-send';
+import { useSend } from './use-send';
+import { FormMessage } from '../office/form';
 
 type PartOption = { id: string; partNumber: string; description: string; unit: string };
 type Props = { technicianId: string; technicianName: string; parts: PartOption[] };
@@ -90,7 +91,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
         Note
         <input value={note} onChange={(e) => setNote(e.target.value)} maxLength={500} className={`${input} font-normal`} placeholder="e.g. Monday load" />
       </label>
-      <FormError message={error} />
+      <FormMessage message={error} />
       <button type="submit" disabled={busy} className="min-h-11 rounded bg-brand px-4 font-bold text-white disabled:opacity-60">
         {busy ? 'Saving…' : reason === 'restock' ? 'Record the load' : 'Record the return'}
       </button>

@@ -1,6 +1,7 @@
 // A stock count: the office enters what is actually in the van; the difference is recorded.
 import { useState, type FormEvent } from 'react';
-import { FormError, useSend } from './use-send';
+import { useSend } from './use-send';
+import { FormMessage } from '../office/form';
 
 type PartOption = { id: string; partNumber: string; description: string; unit: string };
 type Props = { technicianId: string; parts: PartOption[] };
@@ -58,7 +59,7 @@ export default function StockCountForm({ technicianId, parts }: Props) {
           <input name="note" maxLength={500} className={input} placeholder="e.g. Friday count" />
         </label>
       </div>
-      <FormError message={error} />
+      <FormMessage message={error} />
       {done && <p role="status">{done}</p>}
       <button type="submit" disabled={busy} className="min-h-11 rounded border-2 border-brand px-4 font-bold text-brand disabled:opacity-60">
         {busy ? 'Saving…' : 'Record the count'}

@@ -1,7 +1,7 @@
-// The one submit pattern of the van forms: send JSON, keep "busy" while it travels, and turn a
-// refusal into a sentence shown beside the form.
+// The submit of the van forms: send JSON with the console's one fetch helper, keep "busy" while
+// it travels, and turn a refusal into the sentence shown beside the form.
 import { useState } from 'react';
-import { requestJson } from '../ui/request-json';
+import { api, ApiError } from '../office/api';
 
 export function useSend() {
   const [busy, setBusy] = useState(false);
@@ -11,22 +11,16 @@ export function useSend() {
   async function send<T = unknown>(method: string, url: string, body: unknown): Promise<T | null> {
     setBusy(true);
     setError(null);
-    const result = await requestJson<T>(method, url, body);
-    setBusy(false);
-    if (!result.ok) {
-      setError(result.message);
+    try {
+      return await api<T>(url, { method, body });
+    } catch (failure) {
+      const reason = failure instanceof ApiError ? failure : null;
+      setError(reason ? [reason.message, ...reason.details].join(' ') : 'Something went wrong. Nothing was saved; try again.');
       return null;
+    } finally {
+      setBusy(false);
     }
-    return result.data;
   }
 
   return { busy, error, setError, send };
-}
-
-export function FormError({ message }: { message: string | null }) {
-  return message ? (
-    <p role="alert" className="rounded border-2 border-sev-now p-2 font-bold text-sev-now">
-      {message}
-    </p>
-  ) : null;
 }

@@ -476,7 +476,7 @@ async function seedVans(tx: Executor, organisationId: string, userIds: Map<strin
         .onConflictDoNothing();
     }
   }
-  const loadedAt = localInstant(workingDay(today, -4, tz), '07:30', tz);
+  const loadedAt = localInstant(workingDay(today, -4, tz), clockTime.parse('07:30'), tz);
   for (const [tech, stock] of Object.entries(VAN_OPENING_STOCK)) {
     const technicianId = userIds.get(tech)!;
     for (const [partKey, quantity] of Object.entries(stock)) {
@@ -509,13 +509,13 @@ async function seedVans(tx: Executor, organisationId: string, userIds: Map<strin
         id: seedId('used-oil-disposal', d.key),
         organisationId,
         technicianId: userIds.get(d.tech)!,
-        disposedAt: localInstant(workingDay(today, d.day, tz), d.time, tz),
+        disposedAt: localInstant(workingDay(today, d.day, tz), clockTime.parse(d.time), tz),
         siteName: d.siteName,
         siteLicence: d.siteLicence,
         reference: d.reference,
         litres: d.litres,
         recordedBy: userIds.get('office')!,
-        recordedAt: localInstant(workingDay(today, d.day, tz), d.time, tz),
+        recordedAt: localInstant(workingDay(today, d.day, tz), clockTime.parse(d.time), tz),
       })
       .onConflictDoNothing();
   }

@@ -5,6 +5,7 @@ import { nextChangeSeq, oilContainers, parts, type PartKind, type PART_UNITS } f
 import { roundQuantity } from '../trade/quantity';
 import { parseOilGrade } from '../trade/oil';
 import { HttpError } from './http';
+import { isUniqueViolation } from './db-errors';
 
 export type CataloguePart = {
   id: string;
@@ -76,12 +77,6 @@ function checkPartRules(part: Pick<PartInput, 'kind' | 'unit' | 'oilGrade'>): st
   }
 }
 
-function isUniqueViolation(error: unknown): boolean {
-  return typeof error === 'object' && error !== null && 'cause' in error
-    ? isUniqueViolation((error as { cause: unknown }).cause)
-    : (error as { code?: string } | null)?.code === '23505';
-}
-
 export async function createPart(organisationId: string, input: PartInput) {
   const oilGrade = checkPartRules(input);
   try {
@@ -91,7 +86,7 @@ export async function createPart(organisationId: string, input: PartInput) {
       .returning({ id: parts.id });
     return row!;
   } catch (error) {
-    if (isUniqueViolation(error)) throw new HttpError(409, `Part number ${input.partNumber} is already in the catalogue.`);
+    if (isUniqueViolation(error, 'parts_org_part_number_unique')) throw new HttpError(409, `Part number ${input.partNumber} is already in the catalogue.`);
     throw error;
   }
 }
@@ -108,7 +103,7 @@ export async function updatePart(organisationId: string, partId: string, change:
       .set({ ...change, oilGrade: next.kind === 'oil' ? oilGrade : null, updatedAt: new Date(), changeSeq: nextChangeSeq })
       .where(and(eq(parts.id, partId), eq(parts.organisationId, organisationId)));
   } catch (error) {
-    if (isUniqueViolation(error)) throw new HttpError(409, `Part number ${change.partNumber} is already in the catalogue.`);
+    if (isUniqueViolation(error, 'parts_org_part_number_unique')) throw new HttpError(409, `Part number ${change.partNumber} is already in the catalogue.`);
     throw error;
   }
 }

@@ -3,10 +3,10 @@ import { buildLoadList } from '../trade/load-list';
 import { buildOrderList, type SupplierOrder } from '../trade/order-list';
 import { describePacking } from '../trade/containers';
 import { toCsv } from '../csv';
-import { formatMinorUnits } from '../money-format';
+import { formatMajorAmount } from '../office/money-input';
 import { needsInScope } from './load-list';
 import { stockOnHandAcrossVans } from './van-stock';
-import { organisationSettings } from './business-day';
+import { getOrganisation } from './organisation';
 
 export type OrderList = {
   from: string;
@@ -19,7 +19,7 @@ export type OrderList = {
 };
 
 export async function orderListFor(organisationId: string, from: string, to: string): Promise<OrderList> {
-  const { currency } = await organisationSettings(organisationId);
+  const { currency } = await getOrganisation(organisationId);
   const { planned, visitNeeds, catalogue, gaps } = await needsInScope({ organisationId, from, to });
   const { lines } = buildLoadList({
     visitNeeds,
@@ -67,8 +67,8 @@ export function orderListCsv(list: OrderList): string {
       l.pickQuantity,
       UNIT_WORDS[l.part.unit] ?? l.part.unit,
       l.pick ? describePacking(l.pick) : '',
-      formatMinorUnits(l.unitCostMinor, list.currency),
-      formatMinorUnits(l.costMinor, list.currency),
+      formatMajorAmount(l.unitCostMinor, list.currency),
+      formatMajorAmount(l.costMinor, list.currency),
     ]),
   );
   return toCsv([header, ...rows]);

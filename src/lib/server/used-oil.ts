@@ -14,7 +14,7 @@ import {
   visits,
 } from '../../db/schema';
 import { roundQuantity } from '../trade/quantity';
-import { organisationTimeZone } from './business-day';
+import { getOrganisation } from './organisation';
 import { HttpError } from './http';
 import type { Van } from './van-access';
 
@@ -137,7 +137,7 @@ export type MonthRow = { month: string; collectedL: number; disposedL: number };
 /** Litres collected and disposed per calendar month in the business's time zone, newest first. */
 export async function usedOilByMonth(organisationId: string, months = 12): Promise<MonthRow[]> {
   const db = getDb();
-  const tz = await organisationTimeZone(organisationId);
+  const tz = (await getOrganisation(organisationId)).timeZone;
   const c = collections(organisationId);
   // Grouped by position (`group by 1`): the time zone is a bound parameter, and PostgreSQL does
   // not treat two parameters as the same expression.

@@ -1,6 +1,7 @@
 import type { APIRoute } from 'astro';
 import { endpoint, HttpError, json, OFFICE_ROLES, readQuery, requireRole } from '../../../lib/server/http';
-import { addBusinessDays, businessDate, organisationTimeZone } from '../../../lib/server/business-day';
+import { localToday, shiftDate } from '../../../lib/office/local-time';
+import { getOrganisation } from '../../../lib/server/organisation';
 import { orderListCsv, orderListFor } from '../../../lib/server/order-list';
 import { MAX_ORDER_DAYS, orderListQuery } from '../../../lib/server/van-requests';
 
@@ -10,9 +11,9 @@ export const prerender = false;
 export const GET: APIRoute = endpoint(async (context) => {
   const user = requireRole(context, OFFICE_ROLES);
   const query = readQuery(context.url, orderListQuery);
-  const from = query.from ?? businessDate(await organisationTimeZone(user.organisationId), 1);
-  const to = query.to ?? addBusinessDays(from, 6);
-  if (addBusinessDays(from, MAX_ORDER_DAYS - 1) < to) {
+  const from = query.from ?? shiftDate(localToday((await getOrganisation(user.organisationId)).timeZone), 1);
+  const to = query.to ?? shiftDate(from, 6);
+  if (shiftDate(from, MAX_ORDER_DAYS - 1) < to) {
     throw new HttpError(400, `An order list covers at most ${MAX_ORDER_DAYS} days; shorten the range.`);
   }
   const list = await orderListFor(user.organisationId, from, to);

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { endpoint, json, readQuery, requireUser } from '../../../lib/server/http';
-import { businessDate } from '../../../lib/server/business-day';
+import { localToday, shiftDate } from '../../../lib/office/local-time';
 import { loadListForRound } from '../../../lib/server/load-list';
 import { vanForCaller } from '../../../lib/server/van-access';
 import { loadListQuery } from '../../../lib/server/van-requests';
@@ -11,5 +11,5 @@ export const prerender = false;
 export const GET: APIRoute = endpoint(async (context) => {
   const query = readQuery(context.url, loadListQuery);
   const van = await vanForCaller(requireUser(context), query.technicianId);
-  return json(await loadListForRound(van, query.date ?? businessDate(van.timeZone, 1)));
+  return json(await loadListForRound(van, query.date ?? shiftDate(localToday(van.timeZone), 1)));
 });

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { toCsv } from '../../../src/lib/csv';
-import { formatMinorUnits } from '../../../src/lib/money-format';
 
 describe('toCsv (RFC 4180)', () => {
   it('quotes fields with commas, quotes or line breaks and ends lines with CRLF', () => {
@@ -10,14 +9,5 @@ describe('toCsv (RFC 4180)', () => {
   it('keeps text that a spreadsheet would run as a formula as text (OWASP CSV injection)', () => {
     expect(toCsv([['=1+2', '@SUM(A1)', '-3', 'plain']])).toBe("'=1+2,'@SUM(A1),'-3,plain\r\n");
     expect(toCsv([[-3]])).toBe('-3\r\n');
-  });
-});
-
-describe('formatMinorUnits (ISO 4217 minor digits)', () => {
-  it('writes pounds with two digits and yen with none', () => {
-    expect(formatMinorUnits(5760, 'GBP')).toBe('57.60');
-    expect(formatMinorUnits(5, 'GBP')).toBe('0.05');
-    expect(formatMinorUnits(-1234, 'EUR')).toBe('-12.34');
-    expect(formatMinorUnits(1500, 'JPY')).toBe('1500');
   });
 });
