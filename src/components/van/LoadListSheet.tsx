@@ -1,6 +1,6 @@
 // The load list as a sheet: what to pick from the store first, then the detail. The same sheet
 // serves the phone (from the device's saved copy), the office and paper.
-import type { RoundLoadList } from '../../lib/server/load-list';
+import type { RoundLoadList } from '../../lib/van/load-list-contract';
 import { formatDay, formatPacking, formatQuantity, formatTime } from './format';
 import { EnoughMark, ShortMark } from './Marks';
 

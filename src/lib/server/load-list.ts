@@ -4,13 +4,14 @@
 import { and, asc, eq, gte, inArray, lte } from 'drizzle-orm';
 import { getDb } from '../../db/client';
 import { checklistTemplates, customers, parts, templateItems, templateVersions, vehicles, visits } from '../../db/schema';
-import { buildLoadList, type LoadList, type StockPart } from '../trade/load-list';
+import { buildLoadList, type StockPart } from '../trade/load-list';
 import { partsNeededForVisit } from '../trade/parts-needed';
 import { sumQuantities } from '../trade/quantity';
 import { stockLevels } from './van-stock';
 import { containerSizesOf, stockPartColumns } from './catalogue';
 import { usedOilHeld } from './used-oil';
 import type { Van } from './van-access';
+import type { RoundLoadList } from '../van/load-list-contract';
 
 // Visits not yet started or under way still need their parts; done and cancelled ones do not.
 const VISITS_TO_LOAD = ['booked', 'in_progress'] as const;
@@ -118,23 +119,8 @@ export async function needsInScope(scope: VisitScope) {
   return { planned, visitNeeds, catalogue, gaps };
 }
 
-export type RoundLoadList = LoadList & {
-  technician: { id: string; name: string };
-  roundDate: string;
-  visits: {
-    id: string;
-    position: number;
-    slotStart: string;
-    registration: string;
-    vehicle: string;
-    customerName: string;
-    postcode: string;
-    checklist: string;
-    parts: { partNumber: string; description: string; quantity: number; unit: string }[];
-  }[];
-  gaps: string[];
-  usedOil: { heldL: number; expectedL: number };
-};
+// The answer's shape is the contract the phone checks (lib/van/load-list-contract.ts).
+export type { RoundLoadList };
 
 /** What the technician's van must carry for their round on `roundDate`. No money figures. */
 export async function loadListForRound(van: Van, roundDate: string): Promise<RoundLoadList> {
