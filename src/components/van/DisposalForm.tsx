@@ -1,5 +1,5 @@
 // The office records a trip to a licensed site with a van's used oil.
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { useSend } from './use-send';
 import { FormMessage } from '../office/form';
 
@@ -18,7 +18,7 @@ export default function DisposalForm({ vans }: Props) {
   const [litres, setLitres] = useState(String(vans[0]?.heldL || ''));
   const { busy, error, setError, send } = useSend();
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const when = String(form.get('disposedAt') ?? '');

@@ -1,5 +1,5 @@
 // One van's minimum for one part, edited in place in the stock table.
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { useSend } from './use-send';
 
 type Props = { technicianId: string; partId: string; partNumber: string; minimum: number | null };
@@ -9,7 +9,7 @@ export default function MinimumCell({ technicianId, partId, partNumber, minimum 
   const { busy, error, setError, send } = useSend();
   const changed = value !== (minimum === null ? '' : String(minimum));
 
-  async function onSubmit(event: FormEvent) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     if (value !== '' && !(Number(value) >= 0)) {
       setError('0 or more, or empty for none');

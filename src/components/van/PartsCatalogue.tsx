@@ -1,6 +1,6 @@
 // The parts catalogue: add a part, change its prices, supplier and whether it is still stocked,
 // and set the container sizes each oil comes in.
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import type { CataloguePart } from '../../lib/server/catalogue';
 import { formatMoney } from '../../lib/trade/money';
 import { parseMoney } from '../../lib/billing/money';
@@ -25,7 +25,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
   const [kind, setKind] = useState('oil_filter');
   const { busy, error, setError, send } = useSend();
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const text = (name: string) => String(form.get(name) ?? '').trim();
@@ -108,7 +108,7 @@ function AddPart({ kinds, currency }: { kinds: readonly string[]; currency: stri
 function EditRow({ part, currency, onDone }: { part: CataloguePart; currency: string; onDone: () => void }) {
   const { busy, error, setError, send } = useSend();
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const text = (name: string) => String(form.get(name) ?? '').trim();

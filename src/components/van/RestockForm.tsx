@@ -1,5 +1,5 @@
 // The office loads a van from the store, or takes parts back: several lines, one submit.
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { useSend } from './use-send';
 import { FormMessage } from '../office/form';
 
@@ -18,7 +18,7 @@ export default function RestockForm({ technicianId, technicianName, parts }: Pro
 
   const update = (key: number, change: Partial<Line>) => setLines((all) => all.map((l) => (l.key === key ? { ...l, ...change } : l)));
 
-  async function onSubmit(event: FormEvent) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     const filled = lines.filter((l) => l.partId || l.quantity);
     if (filled.length === 0 || filled.some((l) => !l.partId || !(Number(l.quantity) > 0))) {

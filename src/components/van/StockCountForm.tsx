@@ -1,5 +1,5 @@
 // A stock count: the office enters what is actually in the van; the difference is recorded.
-import { useState, type FormEvent } from 'react';
+import { useState, type SubmitEvent } from 'react';
 import { useSend } from './use-send';
 import { FormMessage } from '../office/form';
 
@@ -12,7 +12,7 @@ export default function StockCountForm({ technicianId, parts }: Props) {
   const { busy, error, setError, send } = useSend();
   const [done, setDone] = useState<string | null>(null);
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  async function onSubmit(event: SubmitEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = new FormData(event.currentTarget);
     const partId = String(form.get('partId') ?? '');

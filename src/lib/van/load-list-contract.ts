@@ -3,7 +3,7 @@
 // in its database (lib/device/load-lists.ts), so a copy read with no signal is always whole.
 import { z } from 'zod';
 
-const quantity = z.number().finite();
+const quantity = z.number();
 
 const packing = z.object({
   containers: z.array(z.object({ sizeL: z.number().positive(), count: z.number().int().nonnegative() })),
