@@ -93,6 +93,7 @@ async function technicianPages(cookie) {
     { label: 'sign-in', path: '/sign-in' },
     { label: 'round', path: '/round' },
     { label: 'calculators', path: '/calculators' },
+    { label: 'van (load list)', path: '/van' },
   ];
   const visitPath = process.env.BENCH_VISIT_PATH ?? '/visit';
   pages.push({ label: 'visit', path: visitPath, isVisitPage: true });
