@@ -190,6 +190,28 @@ export const MATRIX: Row[] = [
     request: (w) => get(`/api/photos/${w.ids.photoSha}/thumbnail`),
   },
 
+  // Van stock. A technician reads their own van; the office and owner any van of the business,
+  // named by technicianId. Asking for another technician's van is 403 for a technician (whoever's
+  // it is) and 404 for B's office (no such technician in B).
+  {
+    file: 'van/stock.ts',
+    method: 'GET',
+    expect: { ...SIGNED_IN_ONLY, technician: 200, otherTechnician: 403, office: 200, owner: 200, outsiderTechnician: 403, outsider: 404, outsiderOwner: 404 },
+    request: (w) => get(`/api/van/stock?technicianId=${w.a.technician.id}`),
+  },
+  {
+    file: 'van/movements.ts',
+    method: 'GET',
+    expect: { ...SIGNED_IN_ONLY, technician: 200, otherTechnician: 403, office: 200, owner: 200, outsiderTechnician: 403, outsider: 404, outsiderOwner: 404 },
+    request: (w) => get(`/api/van/movements?technicianId=${w.a.technician.id}`),
+  },
+  {
+    file: 'van/load-list.ts',
+    method: 'GET',
+    expect: { ...SIGNED_IN_ONLY, technician: 200, otherTechnician: 403, office: 200, owner: 200, outsiderTechnician: 403, outsider: 404, outsiderOwner: 404 },
+    request: (w) => get(`/api/van/load-list?technicianId=${w.a.technician.id}`),
+  },
+
   // The customer's signed link: no account, the token is the authority.
   {
     file: 'public/record/[token]/advised/[id].ts',
@@ -293,6 +315,43 @@ export const MATRIX: Row[] = [
     method: 'PUT',
     expect: { ...OFFICE_ITEM, office: 200 },
     request: (w) => put(`/api/office/model-notes/${w.ids.modelNoteId}`, { make: 'Corvane', model: 'Estrel', engine: '', title: 'Matrix note', body: 'Look at the coolant pipe clips.' }),
+  },
+  { file: 'office/order-list.ts', method: 'GET', expect: { ...OFFICE_LIST, office: 200, owner: 200 }, request: () => get('/api/office/order-list') },
+  { file: 'office/parts/index.ts', method: 'GET', expect: { ...OFFICE_LIST, office: 200, owner: 200 }, request: () => get('/api/office/parts') },
+  {
+    file: 'office/parts/index.ts',
+    method: 'POST',
+    expect: { ...OFFICE_LIST, outsider: 201, outsiderOwner: 201, office: 201, owner: 201 },
+    request: () => post('/api/office/parts', { partNumber: `MX-${unique()}`, description: 'Cabin filter', kind: 'cabin_filter', unit: '{each}', costMinor: 600, priceMinor: 1400 }),
+  },
+  { file: 'office/parts/[id]/index.ts', method: 'PATCH', expect: { ...OFFICE_ITEM, office: 200 }, request: (w) => ({ path: `/api/office/parts/${w.ids.filterPartId}`, method: 'PATCH', body: { priceMinor: 1250 } }) },
+  { file: 'office/parts/[id]/containers.ts', method: 'PUT', expect: { ...OFFICE_ITEM, office: 200 }, request: (w) => put(`/api/office/parts/${w.ids.oilPartId}/containers`, { sizesL: [1, 5] }) },
+  // The van routes below name A's technician in the body: B's office gets 404 (no such technician in B).
+  {
+    file: 'office/van-stock/movements.ts',
+    method: 'POST',
+    expect: { ...OFFICE_ITEM, office: 201 },
+    request: (w) => post('/api/office/van-stock/movements', { technicianId: w.a.technician.id, reason: 'restock', lines: [{ partId: w.ids.oilPartId, quantity: 5 }], note: '' }),
+  },
+  {
+    file: 'office/van-stock/count.ts',
+    method: 'POST',
+    expect: { ...OFFICE_ITEM, office: 200 },
+    request: (w) => post('/api/office/van-stock/count', { technicianId: w.a.technician.id, partId: w.ids.oilPartId, counted: 4, note: 'Counted on the van' }),
+  },
+  {
+    file: 'office/van-stock/minimums.ts',
+    method: 'PUT',
+    expect: { ...OFFICE_ITEM, office: 200 },
+    request: (w) => put('/api/office/van-stock/minimums', { technicianId: w.a.technician.id, partId: w.ids.filterPartId, minimum: 2 }),
+  },
+  { file: 'office/used-oil.ts', method: 'GET', expect: { ...OFFICE_LIST, office: 200, owner: 200 }, request: () => get('/api/office/used-oil') },
+  {
+    file: 'office/used-oil/disposals.ts',
+    method: 'POST',
+    expect: { ...OFFICE_ITEM, office: 201 },
+    request: (w) =>
+      post('/api/office/used-oil/disposals', { technicianId: w.a.technician.id, disposedAt: new Date(Date.now() - 3_600_000).toISOString(), siteName: 'Aldersby oil bank', siteLicence: '', reference: '', litres: 5 }),
   },
   { file: 'office/people/index.ts', method: 'GET', expect: { ...OWNER_LIST, owner: 200 }, request: () => get('/api/office/people') },
   {

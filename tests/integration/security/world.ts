@@ -150,6 +150,10 @@ export async function buildWorld() {
   const uploadBytes = await pngBytes(9);
   const uploadSha = createHash('sha256').update(uploadBytes).digest('hex');
 
+  // The van stock's parts: an oil (bought in containers) and a filter, from the signed-off visits' catalogue.
+  const [oilPart] = await db.select({ id: s.parts.id }).from(s.parts).where(and(eq(s.parts.organisationId, a.organisationId), eq(s.parts.kind, 'oil'))).limit(1);
+  const [filterPart] = await db.select({ id: s.parts.id }).from(s.parts).where(and(eq(s.parts.organisationId, a.organisationId), eq(s.parts.kind, 'oil_filter'))).limit(1);
+
   const [modelNote] = await db
     .insert(s.modelNotes)
     .values({ organisationId: a.organisationId, make: 'Corvane', model: 'Estrel', engine: '', title: 'Matrix note', body: 'Look at the coolant pipe.' })
@@ -183,6 +187,8 @@ export async function buildWorld() {
     uploadSha,
     uploadBytes,
     modelNoteId: modelNote!.id,
+    oilPartId: oilPart!.id,
+    filterPartId: filterPart!.id,
   };
 
   // Strings of A's that must never reach B, and strings of A's technician's visits that the other
@@ -204,6 +210,7 @@ export async function buildWorld() {
     conflict!.id,
     photoSha,
     modelNote!.id,
+    oilPart!.id,
   ];
   const technicianMarkers = [pushVisitId, cancelVisitId, moveVisitId, ...orderVisitIds, customer!.name];
 
