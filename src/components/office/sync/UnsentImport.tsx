@@ -6,6 +6,7 @@ import { Button } from '../../ui/Button';
 import { api, ApiError } from '../api';
 import { FormMessage } from '../form';
 import { Panel } from '../Panel';
+import { OPERATION_KIND_WORDS } from '../../../lib/words';
 
 type Summary = {
   technician: { id: string; name: string };
@@ -25,16 +26,6 @@ const OUTCOME_WORDS: [keyof Summary['outcomes'], string][] = [
   ['rejected', 'refused'],
 ];
 
-const KIND_WORDS: Record<string, string> = {
-  check: 'check',
-  reading: 'reading',
-  finding: 'finding',
-  note: 'note',
-  'photo.add': 'photo',
-  'photo.remove': 'photo removal',
-  part_line: 'part line',
-  sign_off: 'sign-off',
-};
 
 export default function UnsentImport() {
   const [file, setFile] = useState<File | null>(null);
@@ -127,7 +118,7 @@ export default function UnsentImport() {
               <tbody>
                 {summary.rejected.map((r) => (
                   <tr key={r.opId} className="border-b border-ink/10">
-                    <td className="py-1 pr-3">{KIND_WORDS[r.kind] ?? r.kind}</td>
+                    <td className="py-1 pr-3">{OPERATION_KIND_WORDS[r.kind] ?? r.kind}</td>
                     <td className="py-1 pr-3">
                       <a href={`/office/visits/${r.visitId}`} className="text-brand underline">
                         {r.visitId.slice(0, 8)}
