@@ -9,10 +9,12 @@ import { migrate } from '../scripts/lib/migrate.mjs';
 import { runOrThrow } from '../scripts/lib/run.mjs';
 import { startServer, waitForServer } from '../scripts/lib/server-process.mjs';
 import { assetsInHtml, pageGraph } from './lib/page-assets.mjs';
+import { freePort } from './lib/bench-server.mjs';
 
 // The visit page must stay within this much compressed JavaScript, framework included (issue budget).
 const VISIT_PAGE_BUDGET_BYTES = 150 * 1024;
-const port = process.env.BENCH_PORT ?? '4399';
+// A free port unless told: several checkouts on one machine must not meet on a fixed one.
+const port = process.env.BENCH_PORT ?? String(await freePort());
 const base = `http://127.0.0.1:${port}`;
 
 const { databaseUrl, env } = await setup();
@@ -47,7 +49,8 @@ try {
   const rows = [];
   let visitPageGzip = null;
   for (const page of pages) {
-    const response = await fetch(`${base}${page.path}`, { headers: { cookie }, redirect: 'manual' });
+    // The sign-in page is for people not signed in yet (signed in, it redirects away).
+    const response = await fetch(`${base}${page.path}`, { headers: page.anonymous ? {} : { cookie }, redirect: 'manual' });
     if (response.status !== 200) {
       console.log(`${page.label}: ${page.path} answered ${response.status}; not measured`);
       if (page.isVisitPage) process.exitCode = 1;
@@ -90,10 +93,11 @@ try {
 /** The technician's pages; the visit page opens the first visit of today's round. */
 async function technicianPages(cookie) {
   const pages = [
-    { label: 'sign-in', path: '/sign-in' },
+    { label: 'sign-in', path: '/sign-in', anonymous: true },
     { label: 'round', path: '/round' },
     { label: 'calculators', path: '/calculators' },
   ];
+  // The visit page is one prerendered shell, /visit?id=<visit> (src/pages/visit/index.astro).
   const visitPath = process.env.BENCH_VISIT_PATH ?? '/visit';
   pages.push({ label: 'visit', path: visitPath, isVisitPage: true });
   return pages;
