@@ -4,8 +4,8 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { expect, test } from '@playwright/test';
-import { newClientAddress } from '../support/client-address';
-import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../support/fixtures';
+import { createOrganisation, type OrganisationFixture } from '../support/fixtures';
+import { signInWithRoundCached } from '../support/phone-sign-in';
 import { createRound, type RoundFixture } from '../support/round-fixture';
 import { unsentFileSchema } from '../../src/lib/sync/unsent-file';
 
@@ -21,18 +21,7 @@ test.beforeAll(async () => {
 });
 
 test('offline, the unsent changes are saved to a file; after two days without signal, first on the screen', async ({ context, page }) => {
-  await context.setExtraHTTPHeaders({ 'x-forwarded-for': newClientAddress() });
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(org.technician.email);
-  await page.getByLabel('Password').fill(FIXTURE_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/round/);
-  const card = page.getByRole('link', { name: new RegExp(`${round.customerName}, ${round.registration}`) });
-  await expect(card.getByText('Ready offline')).toBeVisible({ timeout: 30_000 });
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  await expect(page.getByTestId('outbox-state')).toContainText('Nothing waiting');
+  await signInWithRoundCached(context, page, org.technician.email, round);
 
   await context.setOffline(true);
   await page.goto(`/visit?id=${round.visitId}#checklist`);
