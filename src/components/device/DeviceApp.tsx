@@ -208,7 +208,8 @@ function WrenchSetting() {
         Your torque wrench
       </h2>
       <p className="text-base">The range marked on its scale. A torque reading below the lowest mark cannot be trusted (ISO 6789-1:2017).</p>
-      <div className="grid grid-cols-2 gap-3">
+      {/* items-end keeps the two boxes level when one label wraps on a narrow phone. */}
+      <div className="grid grid-cols-2 items-end gap-3">
         <label className="flex flex-col gap-1 font-bold">
           Lowest mark (N·m)
           <input value={min} onChange={(e) => setMin(e.target.value)} inputMode="decimal" className={field} />

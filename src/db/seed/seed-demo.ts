@@ -14,6 +14,8 @@ import { templateContentInput } from '../../lib/office/template-input';
 import { insertTemplate, publishVersion, writeDraftContent } from '../../lib/server/templates';
 import { ANNUAL_SERVICE, INTERIM_SERVICE, type ChecklistItemSeed, type ChecklistSeed } from './checklists';
 import { seedId } from './ids';
+import { seedInvoices } from './invoices';
+import { seedLateNote } from './late-note';
 import {
   CHECKLIST_FOR_VEHICLE,
   CUSTOMERS,
@@ -29,8 +31,8 @@ type SeedOptions = { today?: Date };
 
 export async function seedDemo(db: Database, options: SeedOptions = {}) {
   const today = options.today ?? new Date();
-  await db.transaction(async (tx) => {
-    const organisationId = seedId('org', ORGANISATION.key);
+  const organisationId = seedId('org', ORGANISATION.key);
+  const laidOut = await db.transaction(async (tx) => {
     const { key: _key, ...org } = ORGANISATION;
     await tx.insert(s.organisations).values({ id: organisationId, ...org }).onConflictDoNothing();
 
@@ -42,8 +44,16 @@ export async function seedDemo(db: Database, options: SeedOptions = {}) {
     for (const checklist of [ANNUAL_SERVICE, INTERIM_SERVICE]) {
       items.set(checklist.key, await seedChecklist(tx, organisationId, checklist, userIds.get('owner')!));
     }
+    // The week is laid out once, around the day of the first seed: laying it out again on a later
+    // day would book the same cars twice in overlapping slots. `npm run demo:reset` starts over.
+    const [anyVisit] = await tx.select({ id: s.visits.id }).from(s.visits).where(eq(s.visits.organisationId, organisationId)).limit(1);
+    if (anyVisit) return null;
     await seedWeek(tx, organisationId, userIds, items, partIds, today);
+    await seedInvoices(tx, organisationId, userIds.get('office')!);
+    return { lateNoteBy: userIds.get('tech-jess')! };
   });
+  // After the week commits: the note goes through the sync merge, which reads the signed visit.
+  if (laidOut) await seedLateNote(db, organisationId, laidOut.lateNoteBy);
 }
 
 async function seedPeople(tx: Executor, organisationId: string) {

@@ -37,15 +37,26 @@ describe('demo seed', () => {
       const first = await snapshot(client);
       await seedDemo(db, { today });
       const second = await snapshot(client);
+      // A later day must not lay the week out again: the same cars would be booked twice.
+      await seedDemo(db, { today: new Date('2026-12-03T10:00:00Z') });
+      const dayAfter = await snapshot(client);
       await client.end();
 
       expect(second).toEqual(first);
+      expect(dayAfter).toEqual(first);
       expect(first.user).toHaveLength(4);
       expect(first.customers).toHaveLength(12);
       expect(first.vehicles!.length).toBeGreaterThanOrEqual(12);
       expect(first.checklist_templates).toHaveLength(2);
       expect(first.visits!.length).toBeGreaterThanOrEqual(10);
       expect(first.sign_offs!.length).toBeGreaterThan(0);
+      // The reviewed visits are invoiced, the oldest one paid, so billing and the dashboard show money.
+      expect(first.invoices).toHaveLength(2);
+      expect(first.payments).toHaveLength(1);
+      expect(first.document_counters).toHaveLength(1);
+      // One note that arrived after the customer signed waits in the office's conflict list.
+      expect(first.conflicts).toHaveLength(1);
+      expect(first.conflicts![0]).toContain('visit_locked');
     } finally {
       await pool.end();
       await scratch.drop();
