@@ -32,7 +32,7 @@ try {
     body: JSON.stringify({ email: 'tom@fenwright.example', password: 'servicing-demo' }),
   });
   const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-  const pages = await technicianPages(cookie);
+  const pages = technicianPages();
   const sizes = new Map();
   const read = (path) => readFileSync(join(root, 'dist', 'client', path), 'utf8');
   const measure = (path) => {
@@ -90,8 +90,8 @@ try {
   server.kill('SIGTERM');
 }
 
-/** The technician's pages; the visit page opens the first visit of today's round. */
-async function technicianPages(cookie) {
+/** The technician's pages; one prerendered shell serves every visit. */
+function technicianPages() {
   const pages = [
     { label: 'sign-in', path: '/sign-in', anonymous: true },
     { label: 'round', path: '/round' },
