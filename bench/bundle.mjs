@@ -96,6 +96,7 @@ function technicianPages() {
     { label: 'sign-in', path: '/sign-in', anonymous: true },
     { label: 'round', path: '/round' },
     { label: 'calculators', path: '/calculators' },
+    { label: 'van (load list)', path: '/van' },
   ];
   // The visit page is one prerendered shell, /visit?id=<visit> (src/pages/visit/index.astro).
   const visitPath = process.env.BENCH_VISIT_PATH ?? '/visit';

@@ -4,7 +4,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 /** Technician pages: static shells whose data comes from the device database. */
-export const TECHNICIAN_SHELLS = ['/round', '/visit', '/device', '/calculators'];
+export const TECHNICIAN_SHELLS = ['/round', '/visit', '/device', '/van', '/calculators'];
 
 /** @type {Partial<import('vite-plugin-pwa').ManifestOptions>} */
 export const pwaManifest = {

@@ -26,7 +26,7 @@ export function pageAccess(pathname: string): PageAccess {
   if (pathname.startsWith('/workbox-')) return { kind: 'public' };
   if (OWNER_PAGES.some((p) => pathname === p || pathname.startsWith(`${p}/`))) return { kind: 'roles', roles: OWNER_PAGE_ROLES };
   if (pathname === '/office' || pathname.startsWith('/office/')) return { kind: 'roles', roles: OFFICE_PAGE_ROLES };
-  // The technician's pages (/round, /visit, /device, /calculators) are prerendered shells served
+  // The technician's pages (/round, /visit, /device, /van, /calculators) are prerendered shells served
   // as static files, so this guard never sees them: they hold no data and check the session on
   // the device (lib/device/boot.ts); the data comes only through guarded /api endpoints.
   return { kind: 'roles', roles: TECHNICIAN_ROLES };

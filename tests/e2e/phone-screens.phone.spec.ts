@@ -125,4 +125,9 @@ test('the technician’s screens hold up on a phone', async ({ context, page }) 
   await page.goto('/device');
   await expect(page.getByRole('heading', { name: 'Your torque wrench' })).toBeVisible();
   await check(page);
+
+  await page.goto('/van');
+  await page.getByRole('button', { name: 'Today', exact: true }).click();
+  await expect(page.getByRole('heading', { name: 'Everything the round needs' })).toBeVisible();
+  await check(page, 'van-load-list');
 });

@@ -8,7 +8,9 @@ import { dropDatabase } from '../../scripts/lib/postgres.mjs';
 let pool: pg.Pool | undefined;
 
 export function testPool() {
-  pool ??= new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
+  // A Playwright worker runs several spec files in one process, sharing this module: a file that
+  // ends the pool in its afterAll must not leave the next file without one.
+  if (!pool || pool.ending || pool.ended) pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 4 });
   return pool;
 }
 

@@ -10,6 +10,7 @@ export default function RoundApp() {
           <RoundScreen device={device} />
           <BottomLinks
             links={[
+              { href: '/van', label: 'Load list' },
               { href: '/calculators', label: 'Calculators' },
               { href: '/device', label: 'This phone' },
             ]}

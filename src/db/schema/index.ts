@@ -11,3 +11,4 @@ export * from './sync';
 export * from './billing';
 export * from './messages';
 export * from './follow-up';
+export * from './van';

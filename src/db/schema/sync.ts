@@ -1,7 +1,7 @@
 // Every operation a device pushed, whatever became of it (idempotency and audit), and the
 // conflict list the office works through.
 import { sql } from 'drizzle-orm';
-import { check, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { check, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { organisations } from './organisations';
 import { visits } from './visits';
 import { changeSeqColumn } from './change-feed';
@@ -106,3 +106,34 @@ export const syncClocks = pgTable('sync_clocks', {
     .references(() => organisations.id, { onDelete: 'cascade' }),
   stamp: text('stamp').notNull(),
 });
+
+/**
+ * Operations the server refused outright (malformed, a visit the pusher may not touch, an id
+ * already used elsewhere). Nothing of them was applied, but they reached the server, so they are
+ * kept, as sent, for the office to see; the phone keeps them in its outbox until the technician
+ * lets them go. A refusal the device is expected to cure by itself (a photo's bytes not uploaded
+ * yet) is not kept.
+ */
+export const refusedOperations = pgTable(
+  'refused_operations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    organisationId: uuid('organisation_id')
+      .notNull()
+      .references(() => organisations.id, { onDelete: 'cascade' }),
+    userId: text('user_id').notNull(),
+    deviceId: text('device_id').notNull(),
+    // As the device named them: not trusted, not joined (the visit may not exist or not be ours).
+    opId: text('op_id').notNull(),
+    visitId: text('visit_id'),
+    kind: text('kind'),
+    body: jsonb('body').notNull(),
+    reason: text('reason').notNull(),
+    receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    // The same refused operation sent again (a retry) is kept once.
+    uniqueIndex('refused_operations_once').on(t.organisationId, t.deviceId, t.opId, t.reason),
+    index('refused_operations_org_idx').on(t.organisationId, t.receivedAt),
+  ],
+);

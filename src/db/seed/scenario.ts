@@ -191,3 +191,42 @@ export const CHECKLIST_FOR_VEHICLE: Record<string, 'annual' | 'interim'> = {
   v01: 'annual', v02: 'annual', v03: 'interim', v04: 'annual', v05: 'annual', v06: 'annual',
   v07: 'annual', v08: 'annual', v09: 'annual', v10: 'interim', v11: 'annual', v12: 'annual', v13: 'interim',
 };
+
+// The van side of the demo. Each oil is bought in 1 L and 5 L containers; both vans were loaded
+// from the store before the week began, and the parts fitted since came off those levels.
+export const OIL_CONTAINER_SIZES_L: Record<string, number[]> = {
+  'oil-0w20': [1, 5],
+  'oil-5w30': [1, 5],
+  'oil-5w40': [1, 5],
+};
+
+export const VAN_OPENING_STOCK: Record<'tech-tom' | 'tech-jess', Record<string, number>> = {
+  'tech-tom': {
+    'oil-0w20': 15, 'oil-5w30': 10, 'oil-5w40': 5, 'of-118': 4, 'of-204': 2, 'af-331': 2, 'af-352': 2,
+    'cf-410': 4, 'ff-512': 1, 'sp-12f': 6, 'sp-14f': 8, 'wb-600': 2, 'bulb-h7': 4, sundries: 10,
+  },
+  'tech-jess': {
+    'oil-0w20': 10, 'oil-5w30': 15, 'oil-5w40': 10, 'of-118': 3, 'of-204': 4, 'af-331': 1, 'af-352': 3,
+    'cf-410': 3, 'ff-512': 3, 'sp-12f': 3, 'sp-14f': 4, 'wb-600': 2, 'bulb-h7': 4, sundries: 10,
+  },
+};
+
+// The level below which the office wants a van restocked: about one day's round.
+export const VAN_MINIMUMS: Record<string, number> = {
+  'oil-0w20': 5, 'oil-5w30': 5, 'oil-5w40': 5, 'of-118': 2, 'of-204': 2, 'af-331': 1, 'af-352': 1,
+  'cf-410': 2, 'ff-512': 1, 'sp-12f': 3, 'sp-14f': 4, sundries: 4,
+};
+
+// Tom emptied his used-oil drum at the (invented) licensed site after his round two days back.
+export const USED_OIL_DISPOSALS = [
+  {
+    key: 'tom-week',
+    tech: 'tech-tom' as const,
+    day: -2,
+    time: '17:30',
+    siteName: 'Aldersby Trade Waste Centre, Gasworks Lane',
+    siteLicence: 'QX-WML-0417',
+    reference: 'WTN-2207',
+    litres: 7.5,
+  },
+];

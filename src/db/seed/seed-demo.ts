@@ -7,6 +7,7 @@ import { eq } from 'drizzle-orm';
 import type { Database, Executor } from '../client';
 import * as s from '../schema';
 import { encodeStamp } from '../../lib/sync/clock';
+import { reconcileVanStockForVisit } from '../../lib/server/van-stock-reconcile';
 import { normaliseRegistration } from '../../lib/trade/registration';
 import { clockTime } from '../../lib/office/form-values';
 import { localInstant } from '../../lib/office/local-time';
@@ -24,6 +25,10 @@ import {
   ORGANISATION,
   PARTS,
   PEOPLE,
+  OIL_CONTAINER_SIZES_L,
+  USED_OIL_DISPOSALS,
+  VAN_MINIMUMS,
+  VAN_OPENING_STOCK,
   VEHICLES,
 } from './scenario';
 
@@ -49,6 +54,7 @@ export async function seedDemo(db: Database, options: SeedOptions = {}) {
     const [anyVisit] = await tx.select({ id: s.visits.id }).from(s.visits).where(eq(s.visits.organisationId, organisationId)).limit(1);
     if (anyVisit) return null;
     await seedWeek(tx, organisationId, userIds, items, partIds, today);
+    await seedVans(tx, organisationId, userIds, partIds, today);
     await seedInvoices(tx, organisationId, userIds.get('office')!);
     return { lateNoteBy: userIds.get('tech-jess')! };
   });
@@ -465,3 +471,64 @@ function withQuantity(part: { partId: string; partNumber: string; description: s
 }
 
 const PARTS_BY_KEY = new Map(PARTS.map((p) => [p.key, p]));
+
+/**
+ * Oil containers, each van's opening stock and minimums, and a used-oil disposal. The parts
+ * fitted on the seeded visits then come off the vans the way synced part lines do.
+ */
+async function seedVans(tx: Executor, organisationId: string, userIds: Map<string, string>, partIds: Map<string, string>, today: Date) {
+  const tz = ORGANISATION.timeZone;
+  for (const [partKey, sizes] of Object.entries(OIL_CONTAINER_SIZES_L)) {
+    for (const sizeL of sizes) {
+      await tx
+        .insert(s.oilContainers)
+        .values({ id: seedId('oil-container', partKey, sizeL), organisationId, partId: partIds.get(partKey)!, sizeL })
+        .onConflictDoNothing();
+    }
+  }
+  const loadedAt = localInstant(workingDay(today, -4, tz), clockTime.parse('07:30'), tz);
+  for (const [tech, stock] of Object.entries(VAN_OPENING_STOCK)) {
+    const technicianId = userIds.get(tech)!;
+    for (const [partKey, quantity] of Object.entries(stock)) {
+      await tx
+        .insert(s.vanStockMovements)
+        .values({
+          id: seedId('van-opening', tech, partKey),
+          organisationId,
+          technicianId,
+          partId: partIds.get(partKey)!,
+          quantity,
+          reason: 'restock',
+          note: 'Loaded for the week',
+          recordedBy: userIds.get('office')!,
+          recordedAt: loadedAt,
+        })
+        .onConflictDoNothing();
+    }
+    for (const [partKey, minimum] of Object.entries(VAN_MINIMUMS)) {
+      await tx
+        .insert(s.vanStockMinimums)
+        .values({ organisationId, technicianId, partId: partIds.get(partKey)!, minimum })
+        .onConflictDoNothing();
+    }
+  }
+  for (const d of USED_OIL_DISPOSALS) {
+    await tx
+      .insert(s.usedOilDisposals)
+      .values({
+        id: seedId('used-oil-disposal', d.key),
+        organisationId,
+        technicianId: userIds.get(d.tech)!,
+        disposedAt: localInstant(workingDay(today, d.day, tz), clockTime.parse(d.time), tz),
+        siteName: d.siteName,
+        siteLicence: d.siteLicence,
+        reference: d.reference,
+        litres: d.litres,
+        recordedBy: userIds.get('office')!,
+        recordedAt: localInstant(workingDay(today, d.day, tz), clockTime.parse(d.time), tz),
+      })
+      .onConflictDoNothing();
+  }
+  const seededVisits = await tx.select({ id: s.visits.id }).from(s.visits).where(eq(s.visits.organisationId, organisationId));
+  for (const visit of seededVisits) await reconcileVanStockForVisit(tx, visit.id);
+}

@@ -9,6 +9,7 @@ import Dexie, { type EntityTable, type Table } from 'dexie';
 import type { PullResponse, PulledTemplateVersion, PulledVehicle, PulledVisit } from '../sync/pull';
 import type { Hlc, Stamp } from '../sync/clock';
 import type { Operation, OperationKind, Severity } from '../sync/operations';
+import type { RoundLoadList } from '../van/load-list-contract';
 
 export type CheckState = 'done' | 'skipped' | 'not_yet';
 
@@ -102,11 +103,34 @@ export type OutboxEntry = {
   createdAt: string;
 };
 
+/** The load list of one round as the server last sent it, kept so it reads with no signal. */
+export type LocalLoadList = { roundDate: string; list: RoundLoadList; fetchedAt: string };
+
 export type MetaRow =
   | { key: 'clock'; value: Hlc }
   | { key: 'cursor'; value: string }
   | { key: 'lastSyncedAt'; value: string }
   | { key: 'lastSyncError'; value: string | null };
+
+/** The first released schema; kept as it was so an upgrade test can open a phone at version 1. */
+export const SCHEMA_V1 = {
+  visits: 'id, roundDate',
+  customers: 'id',
+  vehicles: 'id',
+  parts: 'id, kind',
+  modelNotes: 'id, [make+model]',
+  templateVersions: 'id',
+  checkResults: '[visitId+itemId], visitId',
+  readingResults: '[visitId+itemId], visitId',
+  findings: 'id, visitId',
+  notes: 'id, visitId',
+  photos: 'id, visitId, sha256',
+  photoBlobs: 'sha256',
+  partLines: 'id, visitId',
+  signOffs: 'visitId',
+  outbox: '++seq, &opId, visitId, kind, state, [visitId+kind+entityId]',
+  meta: 'key',
+};
 
 export class DeviceDb extends Dexie {
   visits!: EntityTable<LocalVisit, 'id'>;
@@ -125,29 +149,14 @@ export class DeviceDb extends Dexie {
   signOffs!: EntityTable<LocalSignOff, 'visitId'>;
   outbox!: EntityTable<OutboxEntry, 'seq'>;
   meta!: Table<MetaRow, string>;
+  loadLists!: EntityTable<LocalLoadList, 'roundDate'>;
 
   constructor(name: string, options?: ConstructorParameters<typeof Dexie>[1]) {
     super(name, options);
-    this.version(1).stores({
-      visits: 'id, roundDate',
-      customers: 'id',
-      vehicles: 'id',
-      parts: 'id, kind',
-      modelNotes: 'id, [make+model]',
-      templateVersions: 'id',
-      checkResults: '[visitId+itemId], visitId',
-      readingResults: '[visitId+itemId], visitId',
-      findings: 'id, visitId',
-      notes: 'id, visitId',
-      photos: 'id, visitId, sha256',
-      photoBlobs: 'sha256',
-      partLines: 'id, visitId',
-      signOffs: 'visitId',
-      outbox: '++seq, &opId, visitId, kind, state, [visitId+kind+entityId]',
-      meta: 'key',
-    });
-    // Version 2 (planned, van stock): a `loadList` table for tomorrow's load list, keyed by
-    // visit, filled by pull. Add it as a new version; existing tables need no upgrade.
+    this.version(1).stores(SCHEMA_V1);
+    // Version 2: the van's load list per round date, as the server computed it (sums, containers
+    // and the van's stock are the server's; the phone only shows them). New table, no upgrade.
+    this.version(2).stores({ loadLists: 'roundDate' });
   }
 }
 

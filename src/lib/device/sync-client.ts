@@ -5,26 +5,10 @@ import { pullResponseSchema, type PullResponse } from '../sync/pull';
 import type { DeviceDb, OutboxEntry } from './db';
 import { deviceIdOf, receiveServerStamp } from './clock-store';
 import { storePulledPage, sweepGoneVisits } from './pull-store';
+import { errorOf, OfflineError, request, ServerError, SignedOutError, understood } from './http';
+import { refreshLoadLists } from './load-lists';
 
-/** The session is gone (401): the technician must sign in again. The outbox stays as it is. */
-export class SignedOutError extends Error {
-  constructor() {
-    super('You are signed out. Sign in again to send your changes; they are safe on this phone.');
-  }
-}
-
-/** No network, or the server did not answer. */
-export class OfflineError extends Error {}
-
-/** The server answered with an error; `message` is its explanation. */
-export class ServerError extends Error {
-  constructor(
-    readonly status: number,
-    message: string,
-  ) {
-    super(message);
-  }
-}
+export { OfflineError, ServerError, SignedOutError };
 
 export type UploadProgress = { photosDone: number; photosTotal: number; bytesDone: number; bytesTotal: number };
 
@@ -39,11 +23,7 @@ export type SyncDeps = {
   onUploadProgress?: (progress: UploadProgress) => void;
 };
 
-export type SyncReport = { pushed: number; rejected: number; pulledPages: number; photosUploaded: number };
-
-// A request that connects but never answers (weak signal) must not hold sync up: give up, back
-// off, try again. Push and pull bodies are small; photos have their own, longer limit.
-const REQUEST_TIMEOUT_MS = 30_000;
+export type SyncReport = { pushed: number; rejected: number; pulledPages: number; photosUploaded: number; loadListsSaved: number };
 
 // A runaway server answering hasMore forever must not keep the phone busy for ever.
 const MAX_PULL_PAGES_PER_RUN = 200;
@@ -56,44 +36,12 @@ export async function syncOnce(deps: SyncDeps): Promise<SyncReport> {
   // the phone showing a value the server does not hold, and the server's row has not changed, so
   // a pull from the cursor would not bring it back: pull everything again instead (rare, small).
   if (overruled) await startPullOver(deps.db);
-  const pulledPages = await pullAll(deps);
+  const { pages: pulledPages, rows } = await pullAll(deps);
   await deps.db.meta.put({ key: 'lastSyncedAt', value: new Date().toISOString() });
-  return { pushed, rejected, pulledPages, photosUploaded };
-}
-
-async function request(deps: SyncDeps, path: string, init?: RequestInit): Promise<Response> {
-  let response: Response;
-  try {
-    response = await deps.fetch(`${deps.baseUrl ?? ''}${path}`, { credentials: 'same-origin', signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS), ...init });
-  } catch {
-    throw new OfflineError('No connection to the server. Your changes are safe on this phone.');
-  }
-  if (response.status === 401) throw new SignedOutError();
-  return response;
-}
-
-async function errorOf(response: Response): Promise<ServerError> {
-  let message = `The server answered ${response.status}.`;
-  try {
-    const body = (await response.json()) as { error?: unknown };
-    if (typeof body.error === 'string') message = body.error;
-  } catch {
-    // not JSON: keep the status line
-  }
-  return new ServerError(response.status, message);
-}
-
-/** The answer, checked against the contract; anything else is the server's fault, not the phone's. */
-async function understood<T>(response: Response, schema: { safeParse(data: unknown): { success: true; data: T } | { success: false } }): Promise<T> {
-  let body: unknown;
-  try {
-    body = await response.json();
-  } catch {
-    throw new ServerError(response.status, 'The server’s answer was not JSON. Your changes are safe; sync will try again.');
-  }
-  const parsed = schema.safeParse(body);
-  if (!parsed.success) throw new ServerError(response.status, 'The server’s answer did not match what this app expects. Update the app, then sync again.');
-  return parsed.data;
+  // The load list follows the round: a pull that changed anything may have moved a visit or a
+  // vehicle's spec, so the lists are fetched again; otherwise only when the copy has aged.
+  const { saved: loadListsSaved } = await refreshLoadLists(deps, { roundChanged: rows > 0 });
+  return { pushed, rejected, pulledPages, photosUploaded, loadListsSaved };
 }
 
 // ---- photos ---------------------------------------------------------------------------------
@@ -240,7 +188,9 @@ async function pushOutbox(deps: SyncDeps): Promise<{ pushed: number; rejected: n
 
 // ---- pull -----------------------------------------------------------------------------------
 
-async function pullAll(deps: SyncDeps): Promise<number> {
+type PullCount = { pages: number; rows: number };
+
+async function pullAll(deps: SyncDeps): Promise<PullCount> {
   try {
     return await pullPages(deps);
   } catch (error) {
@@ -251,7 +201,12 @@ async function pullAll(deps: SyncDeps): Promise<number> {
   }
 }
 
-async function pullPages(deps: SyncDeps): Promise<number> {
+/** How many rows a page brought (visits taken off the round included). */
+function rowsIn(page: PullResponse): number {
+  return Object.values(page).reduce<number>((sum, value) => sum + (Array.isArray(value) ? value.length : 0), 0);
+}
+
+async function pullPages(deps: SyncDeps): Promise<PullCount> {
   const { db } = deps;
   const row = await db.meta.get('cursor');
   let cursor = row?.key === 'cursor' ? row.value : null;
@@ -260,11 +215,13 @@ async function pullPages(deps: SyncDeps): Promise<number> {
   const whole = cursor === null;
   let gathered: PullResponse | null = null;
   let pages = 0;
+  let rows = 0;
   while (pages < MAX_PULL_PAGES_PER_RUN) {
     const response = await request(deps, `/api/sync/pull?cursor=${encodeURIComponent(cursor ?? '0')}`);
     if (!response.ok) throw await errorOf(response);
     const page = await understood(response, pullResponseSchema);
     pages += 1;
+    rows += rowsIn(page);
     if (whole) gathered = gathered ? joinPages(gathered, page) : page;
     else await storePulledPage(db, page);
     // Later local changes must order after everything the pull brought (lib/sync/README.md).
@@ -274,7 +231,7 @@ async function pullPages(deps: SyncDeps): Promise<number> {
     if (!page.hasMore) break;
   }
   if (gathered) await storePulledPage(db, gathered, { replace: true });
-  return pages;
+  return { pages, rows };
 }
 
 /** The latest clock stamp a pulled page carries, if any. */

@@ -26,3 +26,14 @@ export type { ReadingRule, ReadingContext, ReadingJudgement } from './judge-read
 export { SEVERITIES, worseSeverity } from './severity';
 export type { Severity } from './severity';
 export { parseTypedNumber } from './guard';
+export { packIntoContainers, describePacking } from './containers';
+export type { Packing, ContainerCount } from './containers';
+export { partsNeededForVisit, oilGradeKey } from './parts-needed';
+export type { VehicleForParts, PartItem, PartNeed, PartsNeeded } from './parts-needed';
+export { buildLoadList } from './load-list';
+export type { LoadList, LoadLine, GradeTotal, StockPart } from './load-list';
+export { buildOrderList, NO_SUPPLIER } from './order-list';
+export type { SupplierOrder, OrderLine } from './order-list';
+export { stockCorrections, isLowStock } from './van-stock';
+export type { Holding } from './van-stock';
+export { roundQuantity, sumQuantities } from './quantity';

@@ -14,24 +14,13 @@ import { OfflineError, syncOnce, type PutBytes } from '../../../src/lib/device/s
 import { addPhoto, recordReading, saveFinding, savePartLine, setCheck, signOff } from '../../../src/lib/device/visit-actions';
 import { testDb } from '../../support/database';
 import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../../support/fixtures';
-import { baseUrl, signIn, type Session } from '../../support/http';
+import { baseUrl, signIn, type Session, sessionFetch } from '../../support/http';
 import { createRound, type RoundFixture } from '../../support/round-fixture';
 
 let org: OrganisationFixture;
 let round: RoundFixture;
 let session: Session;
 let db: DeviceDb;
-
-/** fetch as the signed-in phone: its cookie, its address, same-origin. */
-function phoneFetch(): typeof fetch {
-  return (input, init) => {
-    const headers = new Headers(init?.headers);
-    headers.set('cookie', session.cookie);
-    headers.set('x-forwarded-for', session.address);
-    headers.set('origin', baseUrl());
-    return fetch(input, { ...init, headers });
-  };
-}
 
 beforeAll(async () => {
   org = await createOrganisation('Device sync');
@@ -47,7 +36,7 @@ afterAll(async () => {
 
 describe('a visit recorded on the phone', () => {
   it('pulls the round onto the phone', async () => {
-    await syncOnce({ db, fetch: phoneFetch(), baseUrl: baseUrl() });
+    await syncOnce({ db, fetch: sessionFetch(session), baseUrl: baseUrl() });
     const visit = await db.visits.get(round.visitId);
     expect(visit).toMatchObject({ id: round.visitId, status: 'booked' });
     expect(await db.vehicles.get(round.vehicleId)).toMatchObject({ registration: round.registration, oilCapacityL: 3.2 });
@@ -78,10 +67,10 @@ describe('a visit recorded on the phone', () => {
         },
       });
       dropped = true;
-      const response = await phoneFetch()(url, { method: 'PUT', body: stream, headers: { 'content-type': contentType }, duplex: 'half' } as RequestInit);
+      const response = await sessionFetch(session)(url, { method: 'PUT', body: stream, headers: { 'content-type': contentType }, duplex: 'half' } as RequestInit);
       return { status: response.status, body: await response.text() };
     };
-    await expect(syncOnce({ db, fetch: phoneFetch(), baseUrl: baseUrl(), putBytes: droppingPut })).rejects.toThrow(OfflineError);
+    await expect(syncOnce({ db, fetch: sessionFetch(session), baseUrl: baseUrl(), putBytes: droppingPut })).rejects.toThrow(OfflineError);
     expect(dropped).toBe(true);
     expect(await db.outbox.where('state').equals('pending').count()).toBe(6);
 
@@ -92,7 +81,7 @@ describe('a visit recorded on the phone', () => {
       signatureSvg: '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><path d="M1 8 9 2"/></svg>',
       declaration: 'Work recorded as done.',
     });
-    const report = await syncOnce({ db, fetch: phoneFetch(), baseUrl: baseUrl() });
+    const report = await syncOnce({ db, fetch: sessionFetch(session), baseUrl: baseUrl() });
     expect(report).toMatchObject({ pushed: 7, rejected: 0, photosUploaded: 1 });
     expect(await db.outbox.count()).toBe(0);
 
@@ -121,7 +110,7 @@ describe('a visit recorded on the phone', () => {
     const opsBefore = ops.length;
     const first = ops.find((o) => o.kind === 'check')!;
     const again = { opId: first.opId, visitId: first.visitId, deviceId: first.deviceId, stamp: first.stamp, seenStamp: first.seenStamp, kind: first.kind, payload: first.payload };
-    const response = await phoneFetch()(`${baseUrl()}/api/sync/push`, {
+    const response = await sessionFetch(session)(`${baseUrl()}/api/sync/push`, {
       method: 'POST',
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({ deviceId: first.deviceId, operations: [again] }),

@@ -153,6 +153,33 @@ describe('push: what is refused', () => {
     expect(await recordedCount(visitId)).toBe(1);
   });
 
+  it('keeps every refused operation as sent, once, for the office, but not a photo waiting for its bytes', async () => {
+    const visitId = await createVisit(org, setup);
+    const phone = device('tara');
+    const wrongItem = phone.check(visitId, setup.checklist.checks[0]!, 'done');
+    const refusedOne = { ...wrongItem, payload: { ...wrongItem.payload, itemId: setup.checklist.readings[0]! } };
+    const unknownKind = { ...phone.check(visitId, setup.checklist.checks[1]!, 'done'), kind: 'teleport' };
+    const photoFirst = phone.photoAdd(visitId, randomUUID(), 'a'.repeat(64));
+    const kept = async () => testDb().select().from(s.refusedOperations).where(eq(s.refusedOperations.deviceId, phone.deviceId));
+
+    const first = await push(tech, phone.deviceId, [refusedOne, unknownKind, photoFirst]);
+    expect(first.json.results.map((r) => r.outcome)).toEqual(['rejected', 'rejected', 'rejected']);
+    expect(first.json.results[2]!.reason).toMatch(/upload the photo's bytes first/);
+    const rows = await kept();
+    expect(rows.map((r) => r.opId).sort()).toEqual([refusedOne.opId, unknownKind.opId].sort());
+    const row = rows.find((r) => r.opId === unknownKind.opId)!;
+    expect(row).toMatchObject({ organisationId: org.organisationId, kind: 'teleport', visitId, reason: expect.stringMatching(/kind/) });
+    expect(row.body).toEqual(JSON.parse(JSON.stringify(unknownKind)));
+
+    // The phone retries what it still holds: the server keeps one copy of each.
+    await push(tech, phone.deviceId, [refusedOne, unknownKind]);
+    expect(await kept()).toHaveLength(2);
+    // And the office sees them, named with the visit's plate.
+    const page = await call(office, '/office/refused');
+    expect(page.status).toBe(200);
+    expect(await page.text()).toContain(unknownKind.opId);
+  });
+
   it('answers another technician’s visit with 403 and applies nothing of the batch', async () => {
     const mine = await createVisit(org, setup);
     const theirs = await createVisit(org, setup, { technicianId: org.otherTechnician.id });

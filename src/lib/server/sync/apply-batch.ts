@@ -41,6 +41,8 @@ export async function applyBatch(
     results[index] = reason === undefined ? { opId: results[index]!.opId, outcome } : { opId: results[index]!.opId, outcome, reason };
   };
 
+  // Refusals the device cures by itself (it uploads the photo's bytes, then sends again).
+  const curable = new Set<number>();
   let candidates = parseAll(raw, deviceId, answer);
   // Locking the visits first orders pushes to the same visit (a retry racing its original
   // included): the second waits here and then sees what the first committed.
@@ -57,6 +59,7 @@ export async function applyBatch(
     const stored = objects.get(c.op.payload.sha256);
     if (!stored) {
       answer(c.index, 'rejected', `upload the photo's bytes first (PUT /api/photos/${c.op.payload.sha256}), then send this again`);
+      curable.add(c.index);
       return [];
     }
     // Type, size and dimensions come from the bytes the server checked, not from the device.
@@ -101,8 +104,37 @@ export async function applyBatch(
   await persistLedgers(tx, user.organisationId, ledgers.values());
   await runPostApplyHooks(tx, applied);
   await saveDeviceState(tx, user, deviceId, device, recorded);
+  await keepRefused(tx, user, deviceId, raw, results, curable);
   logBounded(user, deviceId, recorded, nowMs);
   return results;
+}
+
+/** Every operation that reached the server is kept: the refused ones as sent, with the reason. */
+async function keepRefused(
+  tx: Transaction,
+  user: Pusher,
+  deviceId: string,
+  raw: readonly unknown[],
+  results: OperationResult[],
+  curable: ReadonlySet<number>,
+) {
+  const refused = results.flatMap((result, index) => {
+    if (result.outcome !== 'rejected' || curable.has(index)) return [];
+    const sent = (raw[index] ?? null) as { visitId?: unknown; kind?: unknown } | null;
+    return [
+      {
+        organisationId: user.organisationId,
+        userId: user.id,
+        deviceId,
+        opId: result.opId,
+        visitId: typeof sent?.visitId === 'string' ? sent.visitId.slice(0, 64) : null,
+        kind: typeof sent?.kind === 'string' ? sent.kind.slice(0, 32) : null,
+        body: sent ?? {},
+        reason: result.reason ?? 'refused',
+      },
+    ];
+  });
+  if (refused.length) await tx.insert(s.refusedOperations).values(refused).onConflictDoNothing();
 }
 
 function opIdOf(raw: unknown): string {
