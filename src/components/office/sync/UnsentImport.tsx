@@ -98,6 +98,15 @@ export default function UnsentImport() {
               {summary.photos.refused.length > 0 && `, ${summary.photos.refused.length} refused`}
             </li>
           </ul>
+          {summary.rejected.length > 0 && (
+            <p className="mb-3">
+              Changes refused outright are also kept on{' '}
+              <a href="/office/refused" className="font-bold text-brand underline">
+                Refused changes
+              </a>
+              .
+            </p>
+          )}
           {(summary.outcomes.conflict || summary.outcomes.locked) && (
             <p className="mb-3">
               <a href="/office/conflicts" className="font-bold text-brand underline">
