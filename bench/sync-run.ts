@@ -4,18 +4,17 @@
 // multi-row INSERTs and no merge logic, with the same batches and the same concurrency. It prints
 // operations per second, push latency (p50, p95) and the ratio of the two. Figures, not a test.
 import { randomUUID } from 'node:crypto';
-import { hashPassword } from 'better-auth/crypto';
 import { drizzle } from 'drizzle-orm/node-postgres';
 import pg from 'pg';
 import * as s from '../src/db/schema';
 import { entityIdOf, type Operation } from '../src/lib/sync/operations';
-import { TestDevice } from '../tests/support/sync-ops';
+import type { TestDevice } from '../tests/support/sync-ops';
+import { benchBusiness, benchSignIn, benchVisit, percentile, type BenchBusiness, type BenchTechnician } from './lib/sync-fixture';
 
 const DEVICES = Number(process.env.BENCH_DEVICES ?? 8);
 const VISITS = Number(process.env.BENCH_VISITS ?? 5);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const BASE = process.env.BENCH_BASE_URL!;
-const PASSWORD = 'bench-password-1';
 // One visit's work: a full checklist once through, a few findings and part lines, notes.
 const CHECKS = 40;
 const READINGS = 20;
@@ -26,56 +25,8 @@ const NOTES = 12;
 const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: DEVICES + 2 });
 const db = drizzle(pool, { schema: s });
 
-type Device = { email: string; userId: string; device: TestDevice; cookie?: string; address: string };
-type Fixture = { organisationId: string; versionId: string; checks: string[]; readings: string[]; parts: string[]; customerId: string; vehicleId: string };
-
-async function fixture(): Promise<{ fx: Fixture; devices: Device[] }> {
-  const organisationId = randomUUID();
-  await db.insert(s.organisations).values({ id: organisationId, name: 'Bench Servicing', slug: `bench-${organisationId.slice(0, 8)}` });
-  const hash = await hashPassword(PASSWORD);
-  const devices: Device[] = [];
-  for (let i = 0; i < DEVICES; i++) {
-    const userId = randomUUID();
-    const email = `tech${i}.${organisationId.slice(0, 8)}@bench.example`;
-    await db.insert(s.user).values({ id: userId, name: `Bench Tech ${i}`, email, emailVerified: true, role: 'technician', organisationId });
-    await db.insert(s.account).values({ id: randomUUID(), accountId: userId, providerId: 'credential', userId, password: hash });
-    devices.push({ email, userId, device: new TestDevice(`bench-${i}`, Date.now() - 86_400_000), address: `2001:db8:${(i + 1).toString(16)}::1` });
-  }
-  const customerId = randomUUID();
-  const vehicleId = randomUUID();
-  await db.insert(s.customers).values({ id: customerId, organisationId, name: 'Bench Customer' });
-  await db.insert(s.vehicles).values({ id: vehicleId, organisationId, customerId, registration: 'BENCH1', make: 'Corvane', model: 'Estrel', fuel: 'petrol' });
-  const templateId = randomUUID();
-  const versionId = randomUUID();
-  const sectionId = randomUUID();
-  await db.insert(s.checklistTemplates).values({ id: templateId, organisationId, name: 'Bench service' });
-  await db.insert(s.templateVersions).values({ id: versionId, templateId, organisationId, version: 1, status: 'published', publishedAt: new Date() });
-  await db.insert(s.templateSections).values({ id: sectionId, versionId, position: 0, title: 'All' });
-  const fx: Fixture = { organisationId, versionId, checks: [], readings: [], parts: [], customerId, vehicleId };
-  const kinds = [...Array(CHECKS).fill('check'), ...Array(READINGS).fill('reading'), ...Array(PARTS).fill('part')] as s.ItemKind[];
-  const items = kinds.map((kind, position) => ({ id: randomUUID(), versionId, sectionId, position, kind, label: `${kind} ${position}`, unit: kind === 'check' ? null : 'mm' }));
-  await db.insert(s.templateItems).values(items);
-  for (const item of items) fx[item.kind === 'check' ? 'checks' : item.kind === 'reading' ? 'readings' : 'parts'].push(item.id);
-  return { fx, devices };
-}
-
-async function visitFor(fx: Fixture, technicianId: string) {
-  const id = randomUUID();
-  const start = new Date();
-  await db.insert(s.visits).values({
-    id,
-    organisationId: fx.organisationId,
-    customerId: fx.customerId,
-    vehicleId: fx.vehicleId,
-    technicianId,
-    templateVersionId: fx.versionId,
-    roundDate: start.toISOString().slice(0, 10),
-    slotStart: start,
-    slotEnd: new Date(start.getTime() + 3_600_000),
-    addressLines: '1 Bench Row',
-  });
-  return id;
-}
+type Device = BenchTechnician;
+type Fixture = BenchBusiness;
 
 function visitWork(fx: Fixture, visitId: string, device: TestDevice): Operation[] {
   return [
@@ -85,16 +36,6 @@ function visitWork(fx: Fixture, visitId: string, device: TestDevice): Operation[
     ...Array.from({ length: FINDINGS }, (_, i) => device.finding(visitId, randomUUID(), (['watch', 'soon', 'now'] as const)[i]!)),
     ...Array.from({ length: NOTES }, (_, i) => device.note(visitId, `Bench note ${i}`)),
   ];
-}
-
-async function signIn(d: Device) {
-  const response = await fetch(`${BASE}/api/auth/sign-in/email`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', origin: BASE, 'x-forwarded-for': d.address },
-    body: JSON.stringify({ email: d.email, password: PASSWORD }),
-  });
-  if (!response.ok) throw new Error(`sign-in failed: ${response.status}`);
-  d.cookie = response.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
 }
 
 async function pushBatch(d: Device, ops: Operation[]) {
@@ -146,7 +87,6 @@ async function insertBatch(d: Device, organisationId: string, ops: Operation[]) 
   }
 }
 
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))]!;
 
 async function measure(devices: Device[], work: Map<Device, Operation[][]>, send: (d: Device, ops: Operation[]) => Promise<void>) {
   const latencies: number[] = [];
@@ -163,22 +103,22 @@ async function measure(devices: Device[], work: Map<Device, Operation[][]>, send
     }),
   );
   const seconds = (performance.now() - started) / 1000;
-  latencies.sort((a, b) => a - b);
-  return { opsPerSecond: operations / seconds, p50: percentile(latencies, 50), p95: percentile(latencies, 95), operations };
+    return { opsPerSecond: operations / seconds, p50: percentile(latencies, 50), p95: percentile(latencies, 95), operations };
 }
 
 async function prepare(fx: Fixture, devices: Device[]) {
   const work = new Map<Device, Operation[][]>();
   for (const d of devices) {
     const batches: Operation[][] = [];
-    for (let v = 0; v < VISITS; v++) batches.push(visitWork(fx, await visitFor(fx, d.userId), d.device));
+    for (let v = 0; v < VISITS; v++) batches.push(visitWork(fx, await benchVisit(db, fx, d.userId), d.device));
     work.set(d, batches);
   }
   return work;
 }
 
-const { fx, devices } = await fixture();
-for (const d of devices) await signIn(d);
+const fx = await benchBusiness(db, { technicians: DEVICES, checks: CHECKS, readings: READINGS, parts: PARTS });
+const devices = fx.technicians;
+for (const d of devices) await benchSignIn(BASE, d);
 const perVisit = CHECKS + READINGS + PARTS + FINDINGS + NOTES;
 console.log(`sync benchmark: ${DEVICES} devices × ${VISITS} visits × ${perVisit} operations, one visit per push, best of ${ROUNDS} rounds`);
 // A warm-up visit per device, so both sides start with warm caches and connections.

@@ -40,3 +40,15 @@ export const VISIT_STATUSES = [
 export type UserRole = (typeof USER_ROLES)[number];
 export type VisitStatus = (typeof VISIT_STATUSES)[number];
 export type DistanceUnit = (typeof DISTANCE_UNITS)[number];
+
+/** What a sync operation is, in the office's words (conflicts, imports). */
+export const OPERATION_KIND_WORDS: Record<string, string> = {
+  check: 'check',
+  reading: 'reading',
+  finding: 'finding',
+  note: 'note',
+  'photo.add': 'photo',
+  'photo.remove': 'photo removal',
+  part_line: 'part line',
+  sign_off: 'sign-off',
+};

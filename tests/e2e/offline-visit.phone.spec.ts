@@ -4,7 +4,7 @@
 // it sync, and see the visit complete through the office API.
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import sharp from 'sharp';
-import { newClientAddress } from '../support/client-address';
+import { signInWithRoundCached } from '../support/phone-sign-in';
 import { createOrganisation, FIXTURE_PASSWORD, type OrganisationFixture } from '../support/fixtures';
 import { createRound, type RoundFixture } from '../support/round-fixture';
 import { callJson, signIn } from '../support/http';
@@ -32,20 +32,8 @@ async function openRound(context: BrowserContext) {
 }
 
 test('a whole visit offline, from cold start to sign-off, then synced to the office', async ({ context, page }) => {
-  await context.setExtraHTTPHeaders({ 'x-forwarded-for': newClientAddress() });
-
   // Online, once: sign in; the round is pulled and the app shell cached by the service worker.
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(org.technician.email);
-  await page.getByLabel('Password').fill(FIXTURE_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/round/);
-  const card = page.getByRole('link', { name: new RegExp(`${round.customerName}, ${round.registration}`) });
-  await expect(card.getByText('Ready offline')).toBeVisible({ timeout: 30_000 });
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-  });
-  await expect(page.getByTestId('outbox-state')).toContainText('Nothing waiting');
+  await signInWithRoundCached(context, page, org.technician.email, round);
 
   // No signal from here on; the tab is closed, so the next page is a cold start.
   await context.setOffline(true);

@@ -9,6 +9,7 @@ import { PhoneShell } from '../phone/PhoneShell';
 import { BottomLinks } from '../phone/BottomLinks';
 import { useLiveQuery, useOutboxState } from '../phone/hooks';
 import { formatTime } from '../phone/format';
+import { daysSinceSync, shouldUrgeUnsentFile } from '../../lib/device/unsent-urge';
 
 export default function DeviceApp() {
   return (
@@ -56,8 +57,13 @@ function DeviceScreen({ device }: { device: Device }) {
     window.location.assign('/sign-in');
   }
 
+  const unsent = (outbox?.pending ?? 0) + (outbox?.rejected ?? 0);
+  const urgent = outbox ? shouldUrgeUnsentFile(unsent, outbox.lastSyncedAt, Date.now()) : false;
+  const unsentSection = unsent > 0 && <UnsentChanges device={device} count={unsent} lastSyncedAt={outbox?.lastSyncedAt ?? null} urgent={urgent} />;
+
   return (
     <main className="flex flex-1 flex-col gap-5 p-3 pb-24">
+      {urgent && unsentSection}
       <p>
         Signed in as <strong>{device.user.name}</strong> ({device.user.email}).
       </p>
@@ -96,11 +102,75 @@ function DeviceScreen({ device }: { device: Device }) {
           </>
         )}
       </section>
+      {!urgent && unsentSection}
 
       <button type="button" onClick={signOut} className="min-h-14 rounded-lg border-2 border-ink px-4 text-lg font-bold">
         Sign out
       </button>
     </main>
+  );
+}
+
+/**
+ * Saving the outbox to a file for the office, when the phone cannot reach the server. Offered
+ * whenever something is unsent; first on the screen, in alarm colours, after two days without
+ * reaching the server (lib/device/unsent-urge.ts).
+ */
+function UnsentChanges({ device, count, lastSyncedAt, urgent }: { device: Device; count: number; lastSyncedAt: string | null; urgent: boolean }) {
+  const [result, setResult] = useState<{ ok: boolean; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const days = daysSinceSync(lastSyncedAt, Date.now());
+
+  async function save() {
+    setBusy(true);
+    setResult(null);
+    try {
+      const { saveUnsentFile } = await import('../../lib/device/unsent-export');
+      const saved = await saveUnsentFile(device.db, device.user);
+      setResult({
+        ok: true,
+        text: `Saved ${saved.name}: ${saved.operations} ${saved.operations === 1 ? 'change' : 'changes'}, ${saved.photos} ${saved.photos === 1 ? 'photo' : 'photos'}. Send it to the office (e-mail it, or copy it across); they import it. The changes also stay on this phone and are sent when it finds signal: nothing is counted twice.`,
+      });
+    } catch (error) {
+      setResult({ ok: false, text: `Could not save the file: ${error instanceof Error ? error.message : String(error)}` });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  return (
+    <section
+      id="unsent"
+      aria-labelledby="unsent-heading"
+      className={urgent ? 'rounded-xl border-4 border-sev-now bg-white p-3' : 'rounded-xl border-2 border-ink/15 bg-white p-3'}
+    >
+      <h2 id="unsent-heading" className="flex items-center gap-2 text-xl font-bold">
+        {urgent && (
+          <svg width="28" height="28" viewBox="0 0 24 24" aria-hidden="true" className="shrink-0 text-sev-now">
+            <path d="M12 2 1 21h22L12 2z" fill="currentColor" />
+            <path d="M12 9v5M12 17v1" stroke="white" strokeWidth="2.5" strokeLinecap="round" />
+          </svg>
+        )}
+        {urgent ? (days === null ? 'Not synced yet' : `No contact with the office for ${days} days`) : 'Unsent changes'}
+      </h2>
+      <p className="mt-1">
+        {count} {count === 1 ? 'change has' : 'changes have'} not reached the office.
+        {urgent ? ' Save them to a file and send it to the office, so the work is safe even if this phone is lost or broken.' : ' If this phone cannot reach the server, save them to a file for the office.'}
+      </p>
+      <button
+        type="button"
+        onClick={save}
+        disabled={busy}
+        className={`mt-3 min-h-14 w-full rounded-lg px-3 text-lg font-bold disabled:opacity-60 ${urgent ? 'bg-sev-now text-white' : 'border-2 border-brand text-brand'}`}
+      >
+        {busy ? 'Saving…' : 'Save unsent changes to a file'}
+      </button>
+      {result && (
+        <p role={result.ok ? 'status' : 'alert'} className={`mt-2 ${result.ok ? '' : 'font-bold text-sev-now'}`}>
+          {result.text}
+        </p>
+      )}
+    </section>
   );
 }
 

@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { device } from '../../lib/device/boot';
 import { useOnline, useOutboxState, useSyncStatus } from './hooks';
 import { formatTime } from './format';
+import { daysSinceSync, shouldUrgeUnsentFile } from '../../lib/device/unsent-urge';
 
 export function OutboxBar() {
   const outbox = useOutboxState();
@@ -35,6 +36,10 @@ export function OutboxBar() {
     }
   }
 
+  const unsent = waiting + (outbox?.rejected ?? 0);
+  const urge = outbox && shouldUrgeUnsentFile(unsent, outbox.lastSyncedAt, Date.now());
+  const days = outbox ? daysSinceSync(outbox.lastSyncedAt, Date.now()) : null;
+
   const upload = status.upload;
   return (
     <section aria-label="Outbox" className="border-b-2 border-ink/15 bg-white px-3 py-2 text-ink">
@@ -42,6 +47,11 @@ export function OutboxBar() {
         <p className="min-w-0 flex-1 text-base leading-snug" aria-live="polite" data-testid="outbox-state">
           <span className="font-bold">{line}</span>
           {note && <span className="block text-ink/80">{note}</span>}
+          {urge && (
+            <a href="/device#unsent" className="block font-bold text-sev-now underline">
+              {days === null ? 'Never synced' : `No contact for ${days} days`}: save unsent changes to a file
+            </a>
+          )}
           {(outbox?.rejected ?? 0) > 0 && (
             <a href="/device#refused" className="block font-bold text-sev-now underline">
               {outbox!.rejected} refused by the server: see This phone

@@ -12,6 +12,7 @@
 import { randomUUID } from 'node:crypto';
 import { expect } from 'vitest';
 import { TestDevice } from '../../support/sync-ops';
+import { UNSENT_FILE_FORMAT, UNSENT_FILE_VERSION } from '../../../src/lib/sync/unsent-file';
 import { roundVisitIds, WIPERS, type Caller, type World } from './world';
 
 export const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'ALL'] as const;
@@ -114,6 +115,24 @@ const settingsBody = () => ({
 function checkOp(w: World, caller: Caller) {
   const device = new TestDevice(`matrix-${caller}`, Date.now());
   return post('/api/sync/push', { deviceId: `matrix-${caller}`, operations: [device.check(w.ids.pushVisitId, w.ids.setup.checklist.checks[0]!, 'done')] });
+}
+
+/** A file of one unsent tick, as A's technician's phone saves it (lib/sync/unsent-file.ts). */
+function unsentFile(w: World, caller: Caller) {
+  const deviceId = `matrix-file-${caller}`;
+  const device = new TestDevice(deviceId, Date.now());
+  const op = device.check(w.ids.pushVisitId, w.ids.setup.checklist.checks[1]!, 'done');
+  const now = new Date().toISOString();
+  return {
+    format: UNSENT_FILE_FORMAT,
+    version: UNSENT_FILE_VERSION,
+    createdAt: now,
+    user: { id: w.a.technician.id, name: w.a.technician.name, email: w.a.technician.email },
+    deviceId,
+    lastSyncedAt: null,
+    operations: [{ state: 'pending', reason: null, createdAt: now, op }],
+    photos: [],
+  };
 }
 
 const outcomes = (body: { results?: { outcome: string }[] }) => (body.results ?? []).map((r) => r.outcome);
@@ -352,6 +371,15 @@ export const MATRIX: Row[] = [
     expect: { ...OFFICE_ITEM, office: 201 },
     request: (w) =>
       post('/api/office/used-oil/disposals', { technicianId: w.a.technician.id, disposedAt: new Date(Date.now() - 3_600_000).toISOString(), siteName: 'Aldersby oil bank', siteLicence: '', reference: '', litres: 5 }),
+  },
+  {
+    // A technician's saved file of unsent changes, pushed as that technician. B's office naming A's
+    // technician gets 404; the file's photos and operations go through the sync's own checks.
+    file: 'office/unsent-changes.ts',
+    method: 'POST',
+    expect: { ...OFFICE_ITEM, office: 200 },
+    request: (w, caller) => post('/api/office/unsent-changes', unsentFile(w, caller)),
+    check: (_w, _caller, body) => expect(body.outcomes).toEqual({ applied: 1 }),
   },
   { file: 'office/people/index.ts', method: 'GET', expect: { ...OWNER_LIST, owner: 200 }, request: () => get('/api/office/people') },
   {
