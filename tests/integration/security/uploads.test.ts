@@ -1,6 +1,7 @@
 // Everything a client can send the server, bounded and judged by its content, never by its name
 // or declared type alone. Upload paths: photo bytes (PUT /api/photos/{sha256}), signatures (inside
-// a sync sign-off), JSON bodies (readJson), the sync push, sign-in, the Stripe webhook. There is no
+// a sync sign-off), JSON bodies (readJson), the sync push, sign-in, the Stripe webhook, the office's
+// import of a file of unsent changes (its photos through the same storePhoto). There is no
 // multipart upload and no file name anywhere: photos are stored under their organisation and
 // SHA-256 (tests/integration/sync/photos.test.ts covers type, hash and the 8 MB limit).
 import { createHash, randomUUID } from 'node:crypto';
