@@ -1,9 +1,10 @@
-// Runs the built app (dist/server/entry.mjs) and its job worker, and waits until the app answers.
+// Runs the built app (scripts/app-server.mjs over dist/) and its job worker, and waits until the
+// app answers.
 import { spawn } from 'node:child_process';
 import { join } from 'node:path';
 
 export function startServer(root, env, { stdio = 'inherit' } = {}) {
-  const child = spawn(process.execPath, [join(root, 'dist', 'server', 'entry.mjs')], {
+  const child = spawn(process.execPath, [join(root, 'scripts', 'app-server.mjs')], {
     cwd: root,
     env: { ...process.env, ...env },
     stdio,

@@ -36,3 +36,18 @@ export function pageAccess(pathname: string): PageAccess {
 export function homeFor(role: UserRole): string {
   return role === 'technician' ? '/round' : '/office';
 }
+
+/**
+ * Where sign-in goes next: `next` when it is a page of this app, else `home`. Resolved as a URL
+ * rather than judged by its first characters, because browsers read `/\evil.example` as
+ * `//evil.example`, another site.
+ */
+export function pathAfterSignIn(next: string | null, home: string, origin: string): string {
+  if (!next || !next.startsWith('/')) return home;
+  try {
+    const url = new URL(next, origin);
+    return url.origin === origin ? url.pathname + url.search + url.hash : home;
+  } catch {
+    return home;
+  }
+}

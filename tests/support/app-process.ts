@@ -1,5 +1,5 @@
 // A server process of the built app of our own, for tests that must kill or starve it without
-// disturbing the shared test server other files use (dist/server/entry.mjs, like npm test).
+// disturbing the shared test server other files use (scripts/app-server.mjs, like npm test).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
@@ -19,9 +19,10 @@ export async function freePort(): Promise<number> {
 
 export type AppProcess = { child: ChildProcess; baseUrl: string; stderr: () => string; stop: () => Promise<void> };
 
-export async function startApp(env: Record<string, string>, port: number): Promise<AppProcess> {
+/** `waitForHealth: false` for a server that does not answer plain HTTP (one with its own certificate). */
+export async function startApp(env: Record<string, string>, port: number, { waitForHealth = true } = {}): Promise<AppProcess> {
   const root = process.env.TICKOVER_ROOT ?? process.cwd();
-  const child = spawn(process.execPath, [join(root, 'dist', 'server', 'entry.mjs')], {
+  const child = spawn(process.execPath, [join(root, 'scripts', 'app-server.mjs')], {
     cwd: root,
     env: { ...process.env, HOST: '127.0.0.1', PORT: String(port), PUBLIC_BASE_URL: '', ...env },
     stdio: ['ignore', 'ignore', 'pipe'],
@@ -29,7 +30,7 @@ export async function startApp(env: Record<string, string>, port: number): Promi
   let stderr = '';
   child.stderr!.on('data', (chunk: Buffer) => (stderr += chunk.toString()));
   const baseUrl = `http://127.0.0.1:${port}`;
-  for (let i = 0; i < 200; i++) {
+  for (let i = 0; waitForHealth && i < 200; i++) {
     if (child.exitCode !== null) throw new Error(`the app exited early: ${stderr}`);
     try {
       if ((await fetch(`${baseUrl}/api/health`)).ok) break;

@@ -1,4 +1,5 @@
 import { useState, type FormEvent } from 'react';
+import { pathAfterSignIn } from '../../lib/route-access';
 
 type Props = { next: string | null };
 
@@ -29,9 +30,8 @@ export default function SignInForm({ next }: Props) {
       }
       const body = (await response.json()) as { user?: { role?: string } };
       const home = body.user?.role === 'technician' ? '/round' : '/office';
-      // Only same-site paths are followed, so a crafted link cannot send someone elsewhere.
-      const target = next && next.startsWith('/') && !next.startsWith('//') ? next : home;
-      window.location.assign(target);
+      // Only this app's own pages are followed, so a crafted link cannot send someone elsewhere.
+      window.location.assign(pathAfterSignIn(next, home, window.location.origin));
     } catch {
       setError('No connection to the server. Sign-in needs the network once; after that the round works offline.');
     } finally {

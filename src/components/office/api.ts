@@ -25,8 +25,8 @@ export function withQuery(path: string, query: Query = {}): string {
 
 export async function api<T>(path: string, options: { method?: string; body?: unknown; query?: Query } = {}): Promise<T> {
   const method = options.method ?? (options.body === undefined ? 'GET' : 'POST');
-  // Every write carries a JSON body, even a DELETE: Astro's origin check refuses a write without
-  // a content type unless its Origin matches the address Astro rebuilt, which a proxy can change.
+  // Every write carries a JSON body, even a DELETE, so every write reaches the server in the one
+  // shape its endpoints read.
   const body = method === 'GET' ? undefined : JSON.stringify(options.body ?? {});
   let response: Response;
   try {

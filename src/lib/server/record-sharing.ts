@@ -1,9 +1,9 @@
 // Sharing a visit's service record with its customer: the link (reused while it has a good while
 // left to run) and the "record ready" e-mail.
 import { and, desc, eq, gt, isNull, sql } from 'drizzle-orm';
-import type { Executor } from '../../db/client';
+import { getDb, type Executor } from '../../db/client';
 import * as s from '../../db/schema';
-import { createRecordLink, recordUrl, signRecordToken } from './record-links';
+import { createRecordLink, recordUrl, revokeRecordLinks, signRecordToken } from './record-links';
 import { HttpError } from './http';
 import { transactionWithJobs } from './jobs/transaction';
 import { queueMessage } from './mail/outbox';
@@ -81,4 +81,15 @@ export async function sendRecord(organisationId: string, visitId: string, userId
     if (!messageId) throw new HttpError(409, 'The record is already on its way to this customer.');
     return { messageId, url: link.url };
   });
+}
+
+/** Withdraws every link to a visit's record; a visit of another business is a 404, like elsewhere. */
+export async function withdrawRecordLinks(organisationId: string, visitId: string) {
+  const db = getDb();
+  const [visit] = await db
+    .select({ id: s.visits.id })
+    .from(s.visits)
+    .where(and(eq(s.visits.id, visitId), eq(s.visits.organisationId, organisationId)));
+  if (!visit) throw new HttpError(404, 'No such visit in your business.');
+  return revokeRecordLinks(db, organisationId, visitId);
 }

@@ -164,6 +164,7 @@ export async function cancelVisit(organisationId: string, visitId: string) {
 /** Puts a round in the order the office chose; the list must be exactly the round's visits. */
 export async function reorderRound(organisationId: string, input: ReorderRoundInput) {
   return withChangeFeedWrite(organisationId, async (tx) => {
+    await requireTechnician(tx, organisationId, input.technicianId);
     const round = await roundOf(tx, organisationId, input.technicianId, input.roundDate);
     const known = new Set(round.map((v) => v.id));
     const sent = new Set(input.visitIds);

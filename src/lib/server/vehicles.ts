@@ -105,6 +105,13 @@ export async function createVehicle(organisationId: string, input: VehicleInput)
 
 export async function updateVehicle(organisationId: string, vehicleId: string, input: VehicleInput) {
   return withChangeFeedWrite(organisationId, async (tx) => {
+    // The vehicle first: another business's vehicle is a 404, whatever the form says.
+    const [own] = await tx
+      .select({ id: s.vehicles.id })
+      .from(s.vehicles)
+      .where(and(eq(s.vehicles.id, vehicleId), eq(s.vehicles.organisationId, organisationId)))
+      .for('update');
+    if (!own) throw new HttpError(404, 'No such vehicle in this business.');
     await checkReferences(tx, organisationId, input, vehicleId);
     const [row] = await tx
       .update(s.vehicles)

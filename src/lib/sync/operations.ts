@@ -65,12 +65,34 @@ const partLinePayload = z.object({
   removed: z.boolean(),
 });
 
+// A signature is a drawing: the phone's signature pad writes an <svg> of paths, dots and lines.
+// Office and phone show it only as an <img>, where an SVG runs nothing; still, a signature that
+// holds a script, a link or an image to fetch, an event handler or an entity is not a signature,
+// and nothing that could act once shown some other way is kept.
+const DRAWING_ELEMENTS = new Set(['svg', 'g', 'path', 'circle', 'ellipse', 'line', 'polyline', 'polygon', 'rect', 'title', 'desc']);
+
+export function isPlainDrawing(svg: string): boolean {
+  if (/<[!?]/.test(svg)) return false;
+  if (/[\s"'](on[a-z]+|href|xlink:href|style|src)\s*=/i.test(svg)) return false;
+  for (const tag of svg.matchAll(/<\/?\s*([A-Za-z][\w:.-]*)/g)) {
+    if (!DRAWING_ELEMENTS.has(tag[1]!.toLowerCase())) return false;
+  }
+  return true;
+}
+
+const signatureSvg = z
+  .string()
+  .min(20)
+  .max(SIGNATURE_LIMIT)
+  .startsWith('<svg', 'must be an SVG document')
+  .refine(isPlainDrawing, 'must be a drawing of paths, dots and lines only (no scripts, links, images or styles)');
+
 const signOffPayload = z.object({
   signOffId: id,
   odometer: z.number().int().min(0).max(5_000_000),
   odometerUnit: z.enum(['km', '[mi_i]']),
   customerName: text(120).min(1, 'needs the customer’s name'),
-  signatureSvg: z.string().min(20).max(SIGNATURE_LIMIT).startsWith('<svg', 'must be an SVG document'),
+  signatureSvg,
   declaration: text(2000).min(1),
   signedAt: z.iso.datetime(),
 });

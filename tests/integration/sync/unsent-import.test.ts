@@ -155,8 +155,10 @@ describe('who may import, and what', () => {
     const bad = await importFile(office, { ...fileOf(new TestDevice('who-5', Date.now()), []), version: 9 });
     expect(bad.status).toBe(400);
     expect(bad.json.details.join(' ')).toMatch(/version/);
-    // (text/plain is refused earlier by Astro's cross-site form check, with a 403.)
     const xml = await call(office, '/api/office/unsent-changes', { body: '<file/>', headers: { 'content-type': 'application/xml' } });
     expect(xml.status).toBe(415);
+    // A form-like body from our own page is a 415 too (a cross-site one is refused first, with a 403).
+    const text = await call(office, '/api/office/unsent-changes', { body: '{}', headers: { 'content-type': 'text/plain' } });
+    expect(text.status).toBe(415);
   });
 });

@@ -1,8 +1,7 @@
 import type { APIRoute } from 'astro';
 import { endpoint, json, OFFICE_ROLES, requireRole } from '../../../../../../lib/server/http';
 import { idParam } from '../../../../../../lib/server/follow-up-schemas';
-import { revokeRecordLinks } from '../../../../../../lib/server/record-links';
-import { getDb } from '../../../../../../db/client';
+import { withdrawRecordLinks } from '../../../../../../lib/server/record-sharing';
 
 export const prerender = false;
 
@@ -10,6 +9,6 @@ export const prerender = false;
 export const POST: APIRoute = endpoint(async (context) => {
   const user = requireRole(context, OFFICE_ROLES);
   const { id } = idParam.parse(context.params);
-  const withdrawn = await revokeRecordLinks(getDb(), user.organisationId, id);
+  const withdrawn = await withdrawRecordLinks(user.organisationId, id);
   return json({ withdrawn: withdrawn.length });
 });
