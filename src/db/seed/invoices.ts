@@ -7,7 +7,7 @@ import type { Executor } from '../client';
 import * as s from '../schema';
 import { nextChangeSeq } from '../schema/change-feed';
 import { priceLines } from '../../lib/billing/totals';
-import { linesFromVisit } from '../../lib/server/invoices';
+import { linesFromVisit, writeLines } from '../../lib/server/invoices';
 import { allocateDocumentNumber } from '../../lib/server/document-numbers';
 import { seedId } from './ids';
 
@@ -19,13 +19,12 @@ export async function seedInvoices(tx: Executor, organisationId: string, issuedB
     .from(s.visits)
     .where(and(eq(s.visits.organisationId, organisationId), eq(s.visits.status, 'reviewed')))
     .orderBy(s.visits.slotStart);
+  const [org] = await tx.select().from(s.organisations).where(eq(s.organisations.id, organisationId));
   for (const [index, visit] of reviewed.entries()) {
     const [live] = await tx.select({ id: s.invoices.id }).from(s.invoices).where(and(eq(s.invoices.visitId, visit.id), ne(s.invoices.status, 'void')));
     if (live) continue;
-    const [org] = await tx.select().from(s.organisations).where(eq(s.organisations.id, organisationId));
     const lines = await linesFromVisit(tx, visit);
-    const totals = priceLines(lines, org!.taxRateBasisPoints);
-    if (totals.totalMinor <= 0) continue;
+    if (priceLines(lines, org!.taxRateBasisPoints).totalMinor <= 0) continue;
     const issuedAt = visit.slotEnd;
     const paid = index === 0;
     const invoiceId = seedId('invoice', visit.id);
@@ -38,17 +37,12 @@ export async function seedInvoices(tx: Executor, organisationId: string, issuedB
       status: paid ? 'paid' : 'sent',
       currency: org!.currency,
       taxRateBasisPoints: org!.taxRateBasisPoints,
-      netMinor: totals.netMinor,
-      taxMinor: totals.taxMinor,
-      totalMinor: totals.totalMinor,
       issuedAt,
       dueAt: addDays(issuedAt, PAYMENT_DAYS),
       paidAt: paid ? addDays(issuedAt, 1) : null,
       createdBy: issuedBy,
     });
-    await tx.insert(s.invoiceLines).values(
-      lines.map((line, position) => ({ invoiceId, position, ...line, netMinor: totals.lines[position]!.netMinor, taxMinor: totals.lines[position]!.taxMinor })),
-    );
+    const totals = await writeLines(tx, invoiceId, org!.taxRateBasisPoints, lines);
     if (paid) {
       await tx.insert(s.payments).values({
         organisationId,

@@ -12,7 +12,7 @@
 // use `withChangeFeedWrite` (or call `lockChangeFeed` first in their own transaction) and set
 // `changeSeq: nextChangeSeq` on updates.
 import { sql } from 'drizzle-orm';
-import { getDb, type Executor, type Transaction } from '../../db/client';
+import { getDb, type Database, type Executor, type Transaction } from '../../db/client';
 
 // The first key of our two-key advisory locks; the second is a hash of the organisation id.
 // A hash collision between two organisations only makes them wait for each other.
@@ -28,8 +28,8 @@ export async function lockChangeFeed(tx: Executor, organisationId: string): Prom
 }
 
 /** Runs `work` in a transaction that holds the organisation's change-feed lock. */
-export function withChangeFeedWrite<T>(organisationId: string, work: (tx: Transaction) => Promise<T>): Promise<T> {
-  return getDb().transaction(async (tx) => {
+export function withChangeFeedWrite<T>(organisationId: string, work: (tx: Transaction) => Promise<T>, db: Database = getDb()): Promise<T> {
+  return db.transaction(async (tx) => {
     await lockChangeFeed(tx, organisationId);
     return work(tx);
   });

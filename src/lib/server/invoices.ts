@@ -87,7 +87,8 @@ export async function linesFromVisit(db: Executor, visit: typeof s.visits.$infer
   return lines;
 }
 
-async function writeLines(db: Executor, invoiceId: string, taxRateBasisPoints: number, lines: DraftLine[]) {
+/** Replaces an invoice's lines and sets its totals from them; returns the totals. */
+export async function writeLines(db: Executor, invoiceId: string, taxRateBasisPoints: number, lines: DraftLine[]) {
   let totals;
   try {
     totals = priceLines(lines, taxRateBasisPoints);
@@ -104,6 +105,7 @@ async function writeLines(db: Executor, invoiceId: string, taxRateBasisPoints: n
     .update(s.invoices)
     .set({ netMinor: totals.netMinor, taxMinor: totals.taxMinor, totalMinor: totals.totalMinor, updatedAt: sql`now()` })
     .where(eq(s.invoices.id, invoiceId));
+  return totals;
 }
 
 export async function prepareDraftInvoice(organisationId: string, visitId: string, userId: string) {

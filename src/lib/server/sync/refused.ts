@@ -4,11 +4,14 @@ import { and, count, desc, eq, sql } from 'drizzle-orm';
 import { getDb } from '../../../db/client';
 import * as s from '../../../db/schema';
 
+export async function countRefused(organisationId: string): Promise<number> {
+  const [row] = await getDb().select({ n: count() }).from(s.refusedOperations).where(eq(s.refusedOperations.organisationId, organisationId));
+  return row?.n ?? 0;
+}
+
 export async function listRefused(organisationId: string, page: { limit: number; offset: number }) {
-  const db = getDb();
-  const where = eq(s.refusedOperations.organisationId, organisationId);
-  const [rows, [total]] = await Promise.all([
-    db
+  const [rows, total] = await Promise.all([
+    getDb()
       .select({
         id: s.refusedOperations.id,
         opId: s.refusedOperations.opId,
@@ -26,11 +29,11 @@ export async function listRefused(organisationId: string, page: { limit: number;
       .leftJoin(s.user, eq(s.user.id, s.refusedOperations.userId))
       .leftJoin(s.visits, and(eq(s.visits.organisationId, organisationId), sql`${s.visits.id}::text = ${s.refusedOperations.visitId}`))
       .leftJoin(s.vehicles, eq(s.vehicles.id, s.visits.vehicleId))
-      .where(where)
+      .where(eq(s.refusedOperations.organisationId, organisationId))
       .orderBy(desc(s.refusedOperations.receivedAt), desc(s.refusedOperations.id))
       .limit(page.limit)
       .offset(page.offset),
-    db.select({ n: count() }).from(s.refusedOperations).where(where),
+    countRefused(organisationId),
   ]);
-  return { total: total?.n ?? 0, refused: rows };
+  return { total, refused: rows };
 }
